@@ -1,0 +1,29 @@
+import { mkdtempSync, readFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { loadEnv } from '../env';
+
+describe('configuration', () => {
+  it('when required variables are missing, then start-up fails naming each one', () => {
+    expect(() => loadEnv({})).toThrow(/DATABASE_URL[\s\S]*DATA_DIR|DATA_DIR[\s\S]*DATABASE_URL/);
+  });
+
+  it('when in production without JWT_SECRET, then start-up fails naming it', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    expect(() => loadEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir })).toThrow(/JWT_SECRET: required in production/);
+  });
+
+  it('when in development without JWT_SECRET, then one is generated once and kept in the data folder', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    const first = loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir });
+    const second = loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir });
+    expect(first.JWT_SECRET.length).toBeGreaterThanOrEqual(32);
+    expect(second.JWT_SECRET).toBe(first.JWT_SECRET);
+    expect(readFileSync(path.join(dir, 'jwt-secret'), 'utf8')).toBe(first.JWT_SECRET);
+  });
+
+  it('when PORT is not a number, then the error names PORT', () => {
+    expect(() => loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: '/tmp', PORT: 'eighty' })).toThrow(/PORT/);
+  });
+});

@@ -1,0 +1,33 @@
+import 'reflect-metadata';
+import { DataSource } from 'typeorm';
+import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { Organisation } from '../modules/organisations/organisation.entity';
+import { User } from '../modules/users/user.entity';
+import { AuthToken } from '../modules/auth/auth-token.entity';
+import { Account } from '../modules/accounts/account.entity';
+import { FacilitySettings } from '../modules/facility/facility-settings.entity';
+import { Instrument } from '../modules/instruments/instrument.entity';
+import { Configuration } from '../modules/instruments/configuration.entity';
+import { ChangeoverPair } from '../modules/instruments/changeover-pair.entity';
+import { TimelineBlock } from '../modules/bookings/timeline-block.entity';
+import { TrainingRecord } from '../modules/safety/training-record.entity';
+import { EyewearItem } from '../modules/safety/eyewear-item.entity';
+import { AuditEvent } from '../modules/audit/audit-event.entity';
+import { OutboxMessage } from '../lib/mail/outbox-message.entity';
+
+export const entities = [Organisation, User, AuthToken, Account, FacilitySettings, Instrument, Configuration,
+  ChangeoverPair, TimelineBlock, TrainingRecord, EyewearItem, AuditEvent, OutboxMessage];
+export const migrations = [InitialSchema1764633600000];
+
+export function createDataSource(url: string, poolSize = 10): DataSource {
+  return new DataSource({
+    type: 'postgres',
+    url,
+    entities,
+    migrations,
+    synchronize: false,
+    migrationsRun: false,
+    logging: false,
+    extra: { max: poolSize, connectionTimeoutMillis: 5000 },
+  });
+}

@@ -1,0 +1,40 @@
+import type { Request, RequestHandler, Response, Router } from 'express';
+import type { Role } from '@femtoslot/shared';
+import { AppError, forbidden, unauthenticated } from '../errors/app-error';
+
+export type Access = 'public' | 'signed_in' | readonly Role[];
+
+/** One row of the router table; the security suite walks these rows to build its authorisation matrix. */
+export interface RouteDef {
+  method: 'get' | 'post' | 'patch' | 'put' | 'delete';
+  path: string;
+  access: Access;
+  /** Whether a record of another organisation is refused or redacted (documents the rule for the matrix). */
+  scope?: 'organisation' | 'facility';
+  before?: RequestHandler[];
+  handler: (req: Request, res: Response) => Promise<void> | void;
+}
+
+export function guard(access: Access): RequestHandler {
+  return (req, _res, next) => {
+    if (access === 'public') return next();
+    if (!req.user) return next(unauthenticated());
+    if (access === 'signed_in' || access.includes(req.user.role)) return next();
+    next(forbidden());
+  };
+}
+
+export function mount(router: Router, routes: RouteDef[]): void {
+  for (const r of routes) router[r.method](r.path, guard(r.access), ...(r.before ?? []), r.handler);
+}
+
+export function currentUser(req: Request) {
+  if (!req.user) throw unauthenticated();
+  return req.user;
+}
+
+export function param(req: Request, name: string): string {
+  const v = req.params[name];
+  if (typeof v !== 'string' || !/^[0-9a-f-]{36}$/i.test(v)) throw new AppError('not_found', 'No such record', 404);
+  return v;
+}

@@ -1,0 +1,12 @@
+import type { DataSource } from 'typeorm';
+import type { Env } from '../config/env';
+import type { Logger } from './logger';
+import type { Outbox } from './mail/outbox';
+
+/** What every module factory receives: explicit dependencies, no globals. */
+export interface AppContext {
+  db: DataSource;
+  env: Env;
+  logger: Logger;
+  outbox: Outbox;
+}

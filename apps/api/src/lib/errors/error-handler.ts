@@ -1,0 +1,39 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { QueryFailedError } from 'typeorm';
+import { ZodError } from 'zod';
+import { AppError } from './app-error';
+
+function fromDatabase(err: QueryFailedError): AppError | null {
+  const code = (err as unknown as { driverError?: { code?: string; constraint?: string } }).driverError;
+  if (code?.code === '23P01') {
+    return new AppError('overlap', 'That time overlaps another booking or a maintenance window on this instrument', 409, {
+      constraint: code.constraint,
+    });
+  }
+  if (code?.code === '23505') return new AppError('conflict', 'That record already exists', 409, { constraint: code.constraint });
+  if (code?.code === '23514') return new AppError('rule_violation', 'The values break a rule of the data model', 422, { constraint: code.constraint });
+  return null;
+}
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  let appError: AppError | null = null;
+  if (err instanceof AppError) appError = err;
+  else if (err instanceof ZodError) {
+    appError = new AppError('validation_failed', 'Some fields are missing or invalid', 400, err.issues.map((i) => ({ path: i.path, message: i.message, code: i.code })));
+  } else if (err instanceof QueryFailedError) appError = fromDatabase(err);
+  else if (err?.type === 'entity.parse.failed') appError = new AppError('invalid_json', 'The request body is not valid JSON', 400);
+  else if (err?.type === 'entity.too.large') appError = new AppError('payload_too_large', 'The request body is too large', 413);
+
+  if (!appError) {
+    req.log?.error({ err }, 'unhandled error');
+    res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side' } });
+    return;
+  }
+  res.status(appError.status).json({
+    error: { code: appError.code, message: appError.message, ...(appError.details !== undefined ? { details: appError.details } : {}) },
+  });
+};
+
+export const notFoundHandler: RequestHandler = (req, res) => {
+  res.status(404).json({ error: { code: 'not_found', message: `No route for ${req.method} ${req.path}` } });
+};

@@ -1,0 +1,87 @@
+import PgBoss from 'pg-boss';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Logger } from '../logger';
+import type { MailTransport } from './mailer';
+import { OutboxMessage, type OutboxAttachment } from './outbox-message.entity';
+import type { RenderedMail } from './templates';
+
+const QUEUE = 'outbox-deliver';
+
+export interface OutboxOptions {
+  retryLimit: number;
+  retryDelaySeconds: number;
+  pollingIntervalSeconds?: number;
+}
+
+/**
+ * Every e-mail is first a row in outbox_messages, written in the caller's transaction together with a pg-boss job
+ * (same transaction, through pg-boss's `db` option): a rolled-back action sends nothing and a committed one is
+ * never lost. pg-boss retries failed sends with exponential backoff; the row records attempts and the last error.
+ */
+export class Outbox {
+  private boss: PgBoss;
+  private started = false;
+
+  constructor(private readonly db: DataSource, connectionString: string, private readonly transport: MailTransport,
+    private readonly logger: Logger, private readonly options: OutboxOptions) {
+    this.boss = new PgBoss({ connectionString, max: 3, schedule: false, application_name: 'femtoslot-outbox' });
+    this.boss.on('error', (err) => this.logger.error({ err }, 'outbox queue error'));
+  }
+
+  async start({ work }: { work: boolean }): Promise<void> {
+    await this.boss.start();
+    await this.boss.createQueue(QUEUE).catch(() => undefined);
+    this.started = true;
+    if (!work) return;
+    await this.boss.work<{ id: string }>(QUEUE, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1 }, async (jobs) => {
+      for (const job of jobs) await this.deliver(job.data.id);
+    });
+    await this.requeueStranded();
+  }
+
+  async stop(): Promise<void> {
+    if (!this.started) return;
+    this.started = false;
+    await this.boss.stop({ graceful: true, timeout: 5000, wait: true }).catch(() => undefined);
+    this.transport.close();
+  }
+
+  async enqueue(manager: EntityManager, to: string, mail: RenderedMail, attachments: OutboxAttachment[] = []): Promise<string> {
+    const row = await manager.getRepository(OutboxMessage).save({
+      toAddress: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html, template: mail.template, attachments,
+    });
+    const runner = manager.queryRunner;
+    const db = runner
+      ? { executeSql: async (text: string, values: unknown[]) => ({ rows: (await runner.query(text, values, true)).records }) }
+      : undefined;
+    await this.boss.send(QUEUE, { id: row.id }, {
+      retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true, db,
+    });
+    return row.id;
+  }
+
+  private async deliver(id: string): Promise<void> {
+    const repo = this.db.getRepository(OutboxMessage);
+    const message = await repo.findOne({ where: { id } });
+    if (!message || message.status === 'sent') return;
+    try {
+      await this.transport.send(message);
+      await repo.update({ id, status: 'pending' }, { status: 'sent', sentAt: new Date(), attempts: message.attempts + 1, lastError: null });
+    } catch (err) {
+      await repo.update({ id }, { attempts: message.attempts + 1, lastError: String((err as Error).message).slice(0, 500) });
+      this.logger.warn({ outboxId: id, attempt: message.attempts + 1 }, 'mail delivery failed; will retry');
+      throw err;
+    }
+  }
+
+  /** Pending rows whose job was exhausted (a long mail outage) get a fresh job at start-up. */
+  private async requeueStranded(): Promise<void> {
+    const rows: { id: string }[] = await this.db.query(
+      `SELECT o.id FROM outbox_messages o WHERE o.status = 'pending' AND NOT EXISTS (
+         SELECT 1 FROM pgboss.job j WHERE j.name = $1 AND j.data->>'id' = o.id::text AND j.state IN ('created','retry','active'))
+       ORDER BY o.created_at LIMIT 1000`, [QUEUE]);
+    for (const r of rows) {
+      await this.boss.send(QUEUE, { id: r.id }, { retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true });
+    }
+  }
+}

@@ -1,0 +1,14 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+
+export type AuthTokenPurpose = 'invitation' | 'password_reset';
+
+@Entity('auth_tokens')
+export class AuthToken {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ name: 'user_id', type: 'uuid' }) userId: string;
+  @Column({ type: 'text' }) purpose: AuthTokenPurpose;
+  @Column({ name: 'token_hash', type: 'text' }) tokenHash: string;
+  @Column({ name: 'expires_at', type: 'timestamptz' }) expiresAt: Date;
+  @Column({ name: 'used_at', type: 'timestamptz', nullable: true }) usedAt: Date | null;
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
+}

@@ -1,0 +1,31 @@
+import { Column, CreateDateColumn, Entity, Exclusion, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { numericTransformer } from '../../db/column-types';
+
+export type BookingStatus = 'requested' | 'approved' | 'declined' | 'completed' | 'cancelled' | 'displaced';
+export type MaintenanceStatus = 'scheduled' | 'cancelled';
+/** Statuses that occupy the instrument; mirrored by the exclusion constraint's WHERE clause. */
+export const occupyingStatuses = ['requested', 'approved', 'completed', 'scheduled'] as const;
+
+@Entity('timeline_blocks')
+@Exclusion('timeline_blocks_no_overlap', `USING gist (instrument_id WITH =, tstzrange(starts_at, ends_at, '[)') WITH &&) WHERE (status IN ('requested','approved','completed','scheduled'))`)
+export class TimelineBlock {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ name: 'instrument_id', type: 'uuid' }) instrumentId: string;
+  @Column({ type: 'text' }) kind: 'booking' | 'maintenance';
+  @Column({ type: 'text' }) status: BookingStatus | MaintenanceStatus;
+  @Column({ name: 'starts_at', type: 'timestamptz' }) startsAt: Date;
+  @Column({ name: 'ends_at', type: 'timestamptz' }) endsAt: Date;
+  @Column({ name: 'configuration_id', type: 'uuid', nullable: true }) configurationId: string | null;
+  @Column({ name: 'target_min_nm', type: 'numeric', nullable: true, transformer: numericTransformer }) targetMinNm: number | null;
+  @Column({ name: 'target_max_nm', type: 'numeric', nullable: true, transformer: numericTransformer }) targetMaxNm: number | null;
+  @Column({ name: 'account_id', type: 'uuid', nullable: true }) accountId: string | null;
+  @Column({ name: 'user_id', type: 'uuid', nullable: true }) userId: string | null;
+  @Column({ name: 'organisation_id', type: 'uuid', nullable: true }) organisationId: string | null;
+  @Column({ type: 'text', nullable: true }) purpose: string | null;
+  @Column({ type: 'text', nullable: true }) reason: string | null;
+  @Column({ name: 'decline_reason', type: 'text', nullable: true }) declineReason: string | null;
+  @Column({ name: 'cancellation_fee_percent', type: 'integer', nullable: true }) cancellationFeePercent: number | null;
+  @Column({ name: 'created_by', type: 'uuid', nullable: true }) createdBy: string | null;
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
+  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' }) updatedAt: Date;
+}

@@ -1,0 +1,20 @@
+import { Column, Entity, PrimaryColumn, UpdateDateColumn } from 'typeorm';
+
+export interface FacilityPolicies {
+  minBookingHours: number;
+  maxBookingHours: number;
+  horizonDays: number;
+  externalLeadHours: number;
+  cancellationFreeHours: number;
+  cancellationHalfFeeHours: number;
+}
+
+@Entity('facility_settings')
+export class FacilitySettings {
+  @PrimaryColumn({ type: 'smallint' }) id: number;
+  @Column({ type: 'text' }) name: string;
+  @Column({ name: 'time_zone', type: 'text' }) timeZone: string;
+  @Column({ type: 'char', length: 3 }) currency: string;
+  @Column({ type: 'jsonb' }) policies: FacilityPolicies;
+  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' }) updatedAt: Date;
+}

@@ -1,0 +1,18 @@
+import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { Role } from '@femtoslot/shared';
+import { Organisation } from '../organisations/organisation.entity';
+
+@Entity('users')
+export class User {
+  @PrimaryGeneratedColumn('uuid') id: string;
+  @Column({ name: 'organisation_id', type: 'uuid' }) organisationId: string;
+  @ManyToOne(() => Organisation, { eager: true })
+  @JoinColumn({ name: 'organisation_id' })
+  organisation: Organisation;
+  @Column({ type: 'text' }) email: string;
+  @Column({ type: 'text' }) name: string;
+  @Column({ type: 'text' }) role: Role;
+  @Column({ name: 'password_hash', type: 'text', nullable: true }) passwordHash: string | null;
+  @Column({ type: 'boolean', default: true }) active: boolean;
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
+}

@@ -1,0 +1,73 @@
+import { Navigate, type RouteObject, createBrowserRouter } from 'react-router-dom';
+import { PageLoading } from '../components/ui/spinner';
+import type { Area } from '../config/navigation';
+import { defaultSignedInPath, paths } from '../config/paths';
+import { RequireAuth, RequireRole } from '../lib/auth';
+import { RouteErrorPage } from './routes/errors/route-error';
+
+type LazyPage = NonNullable<RouteObject['lazy']>;
+
+/** A signed-in area: the role guard from config/navigation wraps the lazily loaded page. */
+function areaRoute(area: Area, path: string, lazy: LazyPage): RouteObject {
+  return { element: <RequireRole area={area} />, children: [{ path, lazy }] };
+}
+
+export const routes: RouteObject[] = [
+  {
+    errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <PageLoading />,
+    children: [
+      {
+        path: paths.signIn,
+        lazy: async () => ({ Component: (await import('./routes/auth/sign-in')).SignInPage }),
+      },
+      {
+        path: paths.forgotPassword,
+        lazy: async () => ({ Component: (await import('./routes/auth/forgot-password')).ForgotPasswordPage }),
+      },
+      {
+        path: paths.resetPassword,
+        lazy: async () => ({ Component: (await import('./routes/auth/reset-password')).ResetPasswordPage }),
+      },
+      {
+        path: paths.acceptInvitation,
+        lazy: async () => ({ Component: (await import('./routes/auth/accept-invitation')).AcceptInvitationPage }),
+      },
+      {
+        element: <RequireAuth />,
+        children: [
+          {
+            lazy: async () => ({ Component: (await import('./routes/app-root')).AppRoot }),
+            children: [
+              { index: true, element: <Navigate to={defaultSignedInPath} replace /> },
+              areaRoute('calendar', paths.calendar, async () => ({
+                Component: (await import('./routes/calendar/calendar')).CalendarPage,
+              })),
+              areaRoute('sessions', paths.sessions, async () => ({
+                Component: (await import('./routes/sessions/sessions')).SessionsPage,
+              })),
+              areaRoute('billing', paths.billing, async () => ({
+                Component: (await import('./routes/billing/billing')).BillingPage,
+              })),
+              areaRoute('reports', paths.reports, async () => ({
+                Component: (await import('./routes/reports/reports')).ReportsPage,
+              })),
+              areaRoute('settings', paths.settings, async () => ({
+                Component: (await import('./routes/settings/settings')).SettingsPage,
+              })),
+              areaRoute('people', paths.people, async () => ({
+                Component: (await import('./routes/people/people')).PeoplePage,
+              })),
+            ],
+          },
+        ],
+      },
+      {
+        path: '*',
+        lazy: async () => ({ Component: (await import('./routes/errors/not-found')).NotFoundPage }),
+      },
+    ],
+  },
+];
+
+export const createAppRouter = () => createBrowserRouter(routes);

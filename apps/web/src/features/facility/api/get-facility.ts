@@ -1,0 +1,18 @@
+import type { Facility } from '@femtoslot/shared';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiClient } from '../../../lib/api-client';
+import { facilityKeys } from '../../../lib/query-keys';
+
+export const getFacility = (signal?: AbortSignal) =>
+  apiClient.get<{ facility: Facility }>('/api/facility', signal).then((body) => body.facility);
+
+export const facilityQueryOptions = () =>
+  queryOptions({
+    queryKey: facilityKeys.detail(),
+    queryFn: ({ signal }) => getFacility(signal),
+    staleTime: 30 * 60 * 1000,
+  });
+
+export function useFacility() {
+  return useQuery(facilityQueryOptions());
+}

@@ -1,0 +1,4 @@
+export * from './auth/auth.schemas';
+export * from './facility/facility.schemas';
+export * from './time/zoned-time';
+export * from './engine';

@@ -1,0 +1,25 @@
+import type { OutputKind, RateClass } from '../facility/facility.schemas';
+
+export interface DemoConfiguration {
+  key: string;
+  name: string;
+  outputKind: OutputKind;
+  minNm: number;
+  maxNm: number;
+  defaultNm: number;
+  rateClass: RateClass;
+  /** Demo value only: in a real facility the laser-safety officer sets the required OD. */
+  requiredOd: number;
+}
+
+/**
+ * Demo configurations of the invented "Aurora line" source (PRODUCT.md §5 ranges).
+ * Default wavelengths and OD values are invented for the demo.
+ */
+export const demoConfigurations: readonly DemoConfiguration[] = [
+  { key: 'fundamental', name: 'Fundamental 800 nm', outputKind: 'fundamental', minNm: 780, maxNm: 820, defaultNm: 800, rateClass: 'standard', requiredOd: 7 },
+  { key: 'shg', name: 'SHG', outputKind: 'shg', minNm: 390, maxNm: 410, defaultNm: 400, rateClass: 'standard', requiredOd: 6 },
+  { key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOd: 6 },
+  { key: 'opa_idler', name: 'OPA idler', outputKind: 'opa_idler', minNm: 1600, maxNm: 2600, defaultNm: 2080, rateClass: 'standard', requiredOd: 6 },
+  { key: 'dfg', name: 'DFG mid-IR', outputKind: 'dfg', minNm: 2600, maxNm: 11000, defaultNm: 4000, rateClass: 'dfg', requiredOd: 5 },
+];
