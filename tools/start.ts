@@ -24,8 +24,8 @@ async function main() {
     console.log('[femtoslot] stopped: API, mail capture and PostgreSQL are down; data kept for the next start.');
     process.exit(0);
   };
-  process.once('SIGINT', () => void shutdown('SIGINT'));
-  process.once('SIGTERM', () => void shutdown('SIGTERM'));
+  process.on('SIGINT', () => void shutdown('SIGINT')); // on, not once: npm and tsx relay the same signal again
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
   try {
     const webDist = await buildWeb();
     const { loadEnv } = await import('../apps/api/src/config/env');

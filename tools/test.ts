@@ -18,9 +18,10 @@ async function main(): Promise<number> {
   const started = Date.now();
   const [pgPort, smtpPort, mailWebPort] = await Promise.all([freePort(), freePort(), freePort()]);
   let stack: Stack | null = null;
-  const onSignal = async () => { await stack?.stop(); process.exit(130); };
-  process.once('SIGINT', onSignal);
-  process.once('SIGTERM', onSignal);
+  let signalled = false;
+  const onSignal = async () => { if (signalled) return; signalled = true; await stack?.stop(); process.exit(130); };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
   try {
     const chromium = await ensureChromium();
     stack = await bringUp({

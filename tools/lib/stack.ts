@@ -40,13 +40,14 @@ export async function bringUp(o: StackOptions): Promise<Stack> {
       const { migrate } = await import('../../apps/api/src/db/migrate');
       await migrate(databaseUrl);
     });
-    await step('demo data (once)', async () => {
+    const seeded = await step('demo data (once)', async () => {
       const { createDataSource } = await import('../../apps/api/src/db/data-source');
       const { seedDemo } = await import('../../apps/api/src/db/seed/seed');
       const ds = createDataSource(databaseUrl, 2);
       await ds.initialize();
       try { return await seedDemo(ds); } finally { await ds.destroy(); }
     });
+    console.log(`[femtoslot]   demo data: ${seeded === 'seeded' ? 'seeded now' : 'already there, kept as it is'}`);
     const appDataDir = path.join(dataRoot, o.name);
     mail = await step(`mail capture (SMTP ${o.smtpPort}, web ${o.mailWebPort})`, () =>
       startMailCapture(o.smtpPort, o.mailWebPort, path.join(appDataDir, 'mail')));

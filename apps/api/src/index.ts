@@ -1,5 +1,6 @@
 import 'reflect-metadata';
 import type { Server } from 'node:http';
+import type { DestinationStream } from 'pino';
 import { pathToFileURL } from 'node:url';
 import { loadEnv, type Env } from './config/env';
 import { createDataSource } from './db/data-source';
@@ -17,8 +18,8 @@ export interface RunningApi {
 }
 
 /** Builds the context (database, mail outbox with its worker), then listens. */
-export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolean; pollingIntervalSeconds?: number } = {}): Promise<RunningApi> {
-  const logger = createLogger(env.LOG_LEVEL);
+export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolean; pollingIntervalSeconds?: number; logDestination?: DestinationStream } = {}): Promise<RunningApi> {
+  const logger = createLogger(env.LOG_LEVEL, opts.logDestination);
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();
   const outbox = new Outbox(db, env.DATABASE_URL, smtpTransport(env.SMTP_HOST, env.SMTP_PORT, env.MAIL_FROM), logger, {

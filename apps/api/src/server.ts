@@ -53,6 +53,7 @@ export function createApp(ctx: AppContext) {
   app.use(
     pinoHttp({
       logger: ctx.logger,
+      quietReqLogger: true,
       genReqId: (req, res) => {
         const incoming = req.headers['x-request-id'];
         const id = typeof incoming === 'string' && /^[\w-]{8,64}$/.test(incoming) ? incoming : randomUUID();
@@ -61,7 +62,7 @@ export function createApp(ctx: AppContext) {
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
       serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/([?&]token=)[^&]+/g, '$1[redacted]').replace(/\/calendar\/[^/]+\.ics/, '/calendar/[redacted].ics'), remoteAddress: req.remoteAddress }),
+        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/([?&]token=)[^&]+/g, '$1[redacted]').replace(/\/calendar\/[^/?]+\.ics/, '/calendar/[redacted].ics').replace(/\/invitations\/[^/?]+/, '/invitations/[redacted]'), remoteAddress: req.remoteAddress }),
       },
     }),
   );

@@ -17,7 +17,7 @@ const MINUTE = 60_000;
 function instance(n: number, seed: number): PlanDayInput {
   const random = seededRandom(seed);
   const dayStart = Date.UTC(2030, 2, 4, 6, 0);
-  const spanMinutes = Math.max(16 * 60, n * 100);
+  const spanMinutes = Math.max(16 * 60, n * 140);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)];
   const stateOf = () => {
     const c = pick(demoConfigurations);

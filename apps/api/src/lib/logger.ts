@@ -1,4 +1,4 @@
-import { pino } from 'pino';
+import { pino, type DestinationStream } from 'pino';
 
 /** Paths that must never reach a log line. */
 export const redactPaths = [
@@ -10,7 +10,8 @@ export const redactPaths = [
   '*.passwordHash',
 ];
 
-export function createLogger(level: string) {
-  return pino({ level, redact: { paths: redactPaths, censor: '[redacted]' }, base: { service: 'femtoslot-api' } });
+export function createLogger(level: string, destination?: DestinationStream) {
+  const options = { level, redact: { paths: redactPaths, censor: '[redacted]' }, base: { service: 'femtoslot-api' } };
+  return destination ? pino(options, destination) : pino(options);
 }
 export type Logger = ReturnType<typeof createLogger>;

@@ -31,8 +31,8 @@ export interface TestApi {
   close(): Promise<void>;
 }
 
-export async function startTestApi(overrides: Record<string, string> = {}): Promise<TestApi> {
-  const api = await startApi(testEnv({ ...overrides, APP_URL: overrides.APP_URL ?? 'http://127.0.0.1:1' }), { pollingIntervalSeconds: 0.5 });
+export async function startTestApi(overrides: Record<string, string> = {}, opts: Parameters<typeof startApi>[1] = {}): Promise<TestApi> {
+  const api = await startApi(testEnv({ ...overrides, APP_URL: overrides.APP_URL ?? 'http://127.0.0.1:1' }), { pollingIntervalSeconds: 0.5, ...opts });
   return {
     api,
     http: () => supertest(api.url),

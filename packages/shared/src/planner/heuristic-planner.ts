@@ -1,3 +1,4 @@
+import { IncrementalDecoder } from './incremental-decoder';
 import { decodeSequence, isBetter, type Evaluation, type PlanProblem } from './plan-problem';
 import { seededRandom } from './seeded-random';
 
@@ -63,12 +64,13 @@ function localSearch(problem: PlanProblem, start: number[], maxPasses: number): 
   const len = start.length;
   const sequence = Int32Array.from(start);
   const buffer = new Int32Array(len);
-  let value = decodeSequence(problem, sequence);
-  const accept = (): boolean => {
-    const result = decodeSequence(problem, buffer);
-    if (!isBetter(result, value)) return false;
+  const decoder = new IncrementalDecoder(problem, len);
+  let value = decoder.setBase(sequence);
+  const accept = (changedFrom: number): boolean => {
+    const result = decoder.evaluate(buffer, changedFrom, value);
+    if (!result) return false;
     sequence.set(buffer);
-    value = result;
+    value = decoder.setBase(sequence);
     return true;
   };
   const n = problem.n;
@@ -80,7 +82,7 @@ function localSearch(problem: PlanProblem, start: number[], maxPasses: number): 
         for (let to = 0; to <= len - length; to += 1) {
           if (to === from) continue;
           writeMove(sequence, buffer, from, length, to);
-          if (accept()) improved = true;
+          if (accept(Math.min(from, to))) improved = true;
         }
       }
     }
@@ -90,7 +92,7 @@ function localSearch(problem: PlanProblem, start: number[], maxPasses: number): 
         buffer.set(sequence);
         buffer[a] = sequence[b];
         buffer[b] = sequence[a];
-        if (accept()) improved = true;
+        if (accept(a)) improved = true;
       }
     }
     for (let a = 0; a < len - 2; a += 1) {
@@ -100,7 +102,7 @@ function localSearch(problem: PlanProblem, start: number[], maxPasses: number): 
           buffer[x] = sequence[y];
           buffer[y] = sequence[x];
         }
-        if (accept()) improved = true;
+        if (accept(a)) improved = true;
       }
     }
     if (!improved) break;
