@@ -56,8 +56,9 @@ async function main(): Promise<number> {
     let summary = 'tests: no report was written (the runner crashed before the end)';
     try {
       const r = JSON.parse(readFileSync(report, 'utf8')) as VitestJson;
-      summary = `tests: ${r.numPassedTests} passed, ${r.numFailedTests} failed, ${r.numPendingTests + r.numTodoTests} skipped`;
-      if (r.numFailedTestSuites > 0 && r.numFailedTests === 0) summary += ` (${r.numFailedTestSuites} test files failed to load)`;
+      // A run that errored outside any test (a file that failed to load, an unhandled error) still counts as failed.
+      const failed = r.numFailedTests > 0 || code === 0 ? r.numFailedTests : Math.max(1, r.numFailedTestSuites);
+      summary = `tests: ${r.numPassedTests} passed, ${failed} failed, ${r.numPendingTests + r.numTodoTests} skipped`;
     } catch { /* summary says so */ }
     await stack.stop();
     stack = null;

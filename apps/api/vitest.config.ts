@@ -8,5 +8,6 @@ export default defineConfig({
     testTimeout: 30_000,
     hookTimeout: 60_000,
     maxWorkers: 2,
+    sequence: { groupOrder: 1 },
   },
 });

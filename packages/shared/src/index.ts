@@ -1,4 +1,5 @@
 export * from './auth/auth.schemas';
 export * from './facility/facility.schemas';
 export * from './time/zoned-time';
+export * from './bookings/booking.schemas';
 export * from './engine';

@@ -1,4 +1,5 @@
-import { parse } from 'csv-parse/sync';
+// The browser build bundles its own Buffer shim, so the same reader runs in Node and in the web app.
+import { parse } from 'csv-parse/browser/esm/sync';
 import { z } from 'zod';
 import { EngineError, parseEngineInput } from '../units/engine-error';
 import { analyseAutocorrelation, MIN_TRACE_POINTS, type AutocorrelationResult, type PulseShape } from './autocorrelation';
@@ -45,7 +46,7 @@ export function parseAutocorrelationCsv(text: string): ParsedTrace {
       skip_empty_lines: true,
       relax_column_count: true,
       comment: '#',
-    }) as Array<{ record: string[]; info: { lines: number } }>;
+    }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
   } catch (error) {
     const line = (error as { lines?: number }).lines;
     throw new EngineError('malformed_csv', `The file is not readable CSV: ${(error as Error).message}`, { line });

@@ -11,10 +11,19 @@ function construct(problem: PlanProblem, random: () => number, perturbOrder: boo
   const { n, requests, gaps } = problem;
   let sequence: number[] = [];
   for (let g = 0; g < gaps.length - 1; g += 1) sequence.push(n + g);
-  // Tightest windows first (common practice for insertion heuristics); seeds other than the first shuffle ties.
+  // Tightest windows first, then by configuration and wavelength so that like states meet
+  // (common practice for insertion heuristics); seeds other than the first shuffle the order.
+  const slackBand = (r: (typeof requests)[number]) => Math.floor((r.latest - r.earliest - r.duration) / 240);
   const order = requests
-    .map((r, i) => ({ i, key: r.latest - r.earliest - r.duration + (perturbOrder ? random() * 240 : 0) }))
-    .sort((a, b) => a.key - b.key || a.i - b.i)
+    .map((r, i) => ({ i, r, noise: perturbOrder ? random() : 0 }))
+    .sort(
+      (a, b) =>
+        slackBand(a.r) - slackBand(b.r) ||
+        a.noise - b.noise ||
+        a.r.state.configurationKey.localeCompare(b.r.state.configurationKey) ||
+        a.r.state.nm - b.r.state.nm ||
+        a.i - b.i,
+    )
     .map((x) => x.i);
   const unplaced: number[] = [];
   let current = decodeSequence(problem, sequence);

@@ -38,7 +38,7 @@ export function planDay(input: PlanDayInput, options: PlanDayOptions = {}): DayP
   const settings = parseEngineInput(planDayOptionsSchema, options);
   const problem = buildProblem(parsed);
   const exact = problem.n <= settings.exactLimit;
-  const rounds = settings.searchRounds ?? (problem.n <= 20 ? 40 : 12);
+  const rounds = settings.searchRounds ?? (problem.n <= 20 ? 40 : 16);
   const solution = exact ? solveExact(problem) : solveHeuristic(problem, settings.seed, rounds);
 
   const placements: Placement[] = [];
