@@ -9,6 +9,7 @@ import { smtpTransport } from './lib/mail/mailer';
 import { Outbox } from './lib/mail/outbox';
 import type { AppContext } from './lib/context';
 import { createApp } from './server';
+import { startBookingJobs } from './modules/bookings/bookings.service';
 
 export interface RunningApi {
   url: string;
@@ -27,6 +28,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
   });
   await outbox.start({ work: opts.mailWorker ?? true });
   const ctx: AppContext = { db, env, logger, outbox };
+  if (opts.mailWorker ?? true) await startBookingJobs(ctx);
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));

@@ -15,6 +15,13 @@ import { facilityRoutes } from './modules/facility/facility.routes';
 import { healthRoutes } from './modules/health/health.routes';
 import { organisationsRoutes } from './modules/organisations/organisations.routes';
 import { usersRoutes } from './modules/users/users.routes';
+import { accountsRoutes } from './modules/accounts/accounts.routes';
+import { bookingsRoutes } from './modules/bookings/bookings.routes';
+import { calendarFeedRoutes } from './modules/calendar-feed/calendar-feed.routes';
+import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { opticsRoutes } from './modules/optics/optics.routes';
+import { plannerRoutes } from './modules/planner/planner.routes';
+import { eyewearRoutes } from './modules/safety/eyewear.routes';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -24,6 +31,13 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...usersRoutes(ctx),
     ...organisationsRoutes(ctx),
     ...facilityRoutes(ctx),
+    ...accountsRoutes(ctx),
+    ...opticsRoutes(ctx),
+    ...bookingsRoutes(ctx),
+    ...maintenanceRoutes(ctx),
+    ...plannerRoutes(ctx),
+    ...calendarFeedRoutes(ctx),
+    ...eyewearRoutes(ctx),
   ];
 }
 
@@ -68,7 +82,7 @@ export function createApp(ctx: AppContext) {
   );
 
   const api = Router();
-  api.use(express.json({ limit: '1mb' }));
+  api.use(express.json({ limit: '4mb' }));
   api.use(cookieParser());
   api.use(originCheck(ctx.env.APP_URL));
   api.use(authenticate(ctx));

@@ -2,4 +2,5 @@ export * from './auth/auth.schemas';
 export * from './facility/facility.schemas';
 export * from './time/zoned-time';
 export * from './bookings/booking.schemas';
+export * from './bookings/booking-policy';
 export * from './engine';

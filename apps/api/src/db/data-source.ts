@@ -1,6 +1,7 @@
 import 'reflect-metadata';
 import { DataSource } from 'typeorm';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { BookingWorkflow1764720000000 } from './migrations/1764720000000-booking-workflow';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { User } from '../modules/users/user.entity';
 import { AuthToken } from '../modules/auth/auth-token.entity';
@@ -17,7 +18,7 @@ import { OutboxMessage } from '../lib/mail/outbox-message.entity';
 
 export const entities = [Organisation, User, AuthToken, Account, FacilitySettings, Instrument, Configuration,
   ChangeoverPair, TimelineBlock, TrainingRecord, EyewearItem, AuditEvent, OutboxMessage];
-export const migrations = [InitialSchema1764633600000];
+export const migrations = [InitialSchema1764633600000, BookingWorkflow1764720000000];
 
 export function createDataSource(url: string, poolSize = 10): DataSource {
   return new DataSource({

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { QueryFailedError } from 'typeorm';
 import { ZodError } from 'zod';
+import { isEngineError } from '@femtoslot/shared';
 import { AppError } from './app-error';
 
 function fromDatabase(err: QueryFailedError): AppError | null {
@@ -18,11 +19,13 @@ function fromDatabase(err: QueryFailedError): AppError | null {
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let appError: AppError | null = null;
   if (err instanceof AppError) appError = err;
+  else if (isEngineError(err)) appError = new AppError(err.code, err.message, 422, err.details);
   else if (err instanceof ZodError) {
     appError = new AppError('validation_failed', 'Some fields are missing or invalid', 400, err.issues.map((i) => ({ path: i.path, message: i.message, code: i.code })));
   } else if (err instanceof QueryFailedError) appError = fromDatabase(err);
   else if (err?.type === 'entity.parse.failed') appError = new AppError('invalid_json', 'The request body is not valid JSON', 400);
   else if (err?.type === 'entity.too.large') appError = new AppError('payload_too_large', 'The request body is too large', 413);
+  else if (err?.name === 'MulterError') appError = new AppError(err.code === 'LIMIT_FILE_SIZE' ? 'payload_too_large' : 'bad_upload', err.code === 'LIMIT_FILE_SIZE' ? 'The file is too large' : `The upload was refused: ${err.message}`, err.code === 'LIMIT_FILE_SIZE' ? 413 : 400);
 
   if (!appError) {
     req.log?.error({ err }, 'unhandled error');

@@ -46,14 +46,29 @@ export class Outbox {
     this.transport.close();
   }
 
+  /** Background work on the same queue system (reminders, later the period close), transactional when given a manager. */
+  async sendJob(queue: string, data: object, options: { startAfter?: Date; singletonKey?: string } = {}, manager?: EntityManager): Promise<void> {
+    await this.boss.createQueue(queue).catch(() => undefined);
+    await this.boss.send(queue, data, { ...options, retryLimit: 5, retryDelay: 30, retryBackoff: true, db: manager ? this.dbFor(manager) : undefined });
+  }
+
+  async work<T extends object>(queue: string, handler: (data: T) => Promise<void>): Promise<void> {
+    await this.boss.createQueue(queue).catch(() => undefined);
+    await this.boss.work<T>(queue, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1 }, async (jobs) => {
+      for (const job of jobs) await handler(job.data);
+    });
+  }
+
+  private dbFor(manager: EntityManager) {
+    const runner = manager.queryRunner;
+    return runner ? { executeSql: async (text: string, values: unknown[]) => ({ rows: (await runner.query(text, values, true)).records }) } : undefined;
+  }
+
   async enqueue(manager: EntityManager, to: string, mail: RenderedMail, attachments: OutboxAttachment[] = []): Promise<string> {
     const row = await manager.getRepository(OutboxMessage).save({
       toAddress: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html, template: mail.template, attachments,
     });
-    const runner = manager.queryRunner;
-    const db = runner
-      ? { executeSql: async (text: string, values: unknown[]) => ({ rows: (await runner.query(text, values, true)).records }) }
-      : undefined;
+    const db = this.dbFor(manager);
     await this.boss.send(QUEUE, { id: row.id }, {
       retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true, db,
     });

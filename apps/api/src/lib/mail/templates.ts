@@ -5,10 +5,10 @@ export interface RenderedMail {
   html: string;
 }
 
-const escapeHtml = (s: string) =>
+export const escapeHtml = (s: string) =>
   s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 
-function layout(title: string, paragraphs: string[], action?: { label: string; url: string }): string {
+export function layout(title: string, paragraphs: string[], action?: { label: string; url: string }): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('');
   const button = action
     ? `<p style="margin:20px 0"><a href="${escapeHtml(action.url)}" style="background:#1f4e5f;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none">${escapeHtml(action.label)}</a></p>

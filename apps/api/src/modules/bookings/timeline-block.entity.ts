@@ -7,7 +7,7 @@ export type MaintenanceStatus = 'scheduled' | 'cancelled';
 export const occupyingStatuses = ['requested', 'approved', 'completed', 'scheduled'] as const;
 
 @Entity('timeline_blocks')
-@Exclusion('timeline_blocks_no_overlap', `USING gist (instrument_id WITH =, tstzrange(starts_at, ends_at, '[)') WITH &&) WHERE (status IN ('requested','approved','completed','scheduled'))`)
+@Exclusion('timeline_blocks_no_overlap', `USING gist (instrument_id WITH =, tstzrange(starts_at, ends_at, '[)') WITH &&) WHERE (status IN ('requested','approved','completed','scheduled')) DEFERRABLE INITIALLY IMMEDIATE`)
 export class TimelineBlock {
   @PrimaryGeneratedColumn('uuid') id: string;
   @Column({ name: 'instrument_id', type: 'uuid' }) instrumentId: string;
@@ -26,6 +26,15 @@ export class TimelineBlock {
   @Column({ name: 'decline_reason', type: 'text', nullable: true }) declineReason: string | null;
   @Column({ name: 'cancellation_fee_percent', type: 'integer', nullable: true }) cancellationFeePercent: number | null;
   @Column({ name: 'created_by', type: 'uuid', nullable: true }) createdBy: string | null;
+  @Column({ type: 'jsonb', default: [] }) alternatives: { startsAt: string; endsAt: string }[];
+  @Column({ name: 'rebooked_as', type: 'uuid', nullable: true }) rebookedAs: string | null;
+  @Column({ name: 'displaced_by', type: 'uuid', nullable: true }) displacedBy: string | null;
+  @Column({ name: 'decided_by', type: 'uuid', nullable: true }) decidedBy: string | null;
+  @Column({ name: 'decided_at', type: 'timestamptz', nullable: true }) decidedAt: Date | null;
+  @Column({ name: 'cancelled_by', type: 'uuid', nullable: true }) cancelledBy: string | null;
+  @Column({ name: 'cancelled_at', type: 'timestamptz', nullable: true }) cancelledAt: Date | null;
+  /** RFC 5545 SEQUENCE: bumped on every change a calendar client must pick up. */
+  @Column({ type: 'integer', default: 0 }) sequence: number;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
   @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' }) updatedAt: Date;
 }

@@ -1,6 +1,8 @@
+import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
+import { recordAudit } from '../audit/audit.service';
 import { notFound } from '../../lib/errors/app-error';
-import type { RouteDef } from '../../lib/auth/routes';
+import { currentUser, param, type RouteDef } from '../../lib/auth/routes';
 import { Configuration } from '../instruments/configuration.entity';
 import { Instrument } from '../instruments/instrument.entity';
 import { FacilitySettings } from './facility-settings.entity';
@@ -31,6 +33,24 @@ export function facilityRoutes(ctx: AppContext): RouteDef[] {
           order: { minNm: 'ASC' },
         });
         res.json({ configurations: rows });
+      },
+    },
+    {
+      // The OD is set by the laser-safety officer; staff record it here.
+      method: 'patch', path: '/configurations/:id', access: ['staff'],
+      handler: async (req, res) => {
+        const id = param(req, 'id');
+        const input = z.object({ requiredOd: z.number().min(0).max(12) }).parse(req.body);
+        const saved = await ctx.db.transaction(async (m) => {
+          const row = await m.getRepository(Configuration).findOneBy({ id });
+          if (!row) throw notFound('Configuration');
+          const before = { requiredOd: row.requiredOd };
+          row.requiredOd = input.requiredOd;
+          await m.getRepository(Configuration).save(row);
+          await recordAudit(m, { actorUserId: currentUser(req).id, action: 'configuration.od_changed', entityType: 'configuration', entityId: id, before, after: { requiredOd: row.requiredOd } });
+          return row;
+        });
+        res.json({ configuration: saved });
       },
     },
   ];

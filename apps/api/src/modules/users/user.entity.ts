@@ -14,5 +14,6 @@ export class User {
   @Column({ type: 'text' }) role: Role;
   @Column({ name: 'password_hash', type: 'text', nullable: true }) passwordHash: string | null;
   @Column({ type: 'boolean', default: true }) active: boolean;
+  @Column({ name: 'calendar_token', type: 'text', nullable: true }) calendarToken: string | null;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
 }

@@ -1,0 +1,27 @@
+import { localDate } from '@femtoslot/shared';
+import type { AppContext } from '../../lib/context';
+import { currentUser, type RouteDef } from '../../lib/auth/routes';
+import { FacilitySettings } from '../facility/facility-settings.entity';
+import { Account } from './account.entity';
+
+export function accountsRoutes(ctx: AppContext): RouteDef[] {
+  return [
+    {
+      // The caller's organisation's accounts, each saying whether a booking may be charged to it today and why not.
+      method: 'get', path: '/accounts', access: 'signed_in', scope: 'organisation',
+      handler: async (req, res) => {
+        const user = currentUser(req);
+        const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+        const today = localDate(new Date(), facility.timeZone);
+        const rows = await ctx.db.getRepository(Account).find({ where: { organisationId: user.organisationId }, order: { name: 'ASC' } });
+        res.json({
+          accounts: rows.map((a) => {
+            const reason = a.status === 'pending' ? 'Waiting for approval by a PI' : a.status === 'inactive' ? 'Inactive'
+              : a.kind === 'external' && a.poExpiresOn && a.poExpiresOn < today ? `PO ${a.poNumber ?? ''} expired on ${a.poExpiresOn}` : null;
+            return { id: a.id, name: a.name, kind: a.kind, status: a.status, poNumber: a.poNumber, poExpiresOn: a.poExpiresOn, costCentreCode: a.costCentreCode, usable: reason === null, reason };
+          }),
+        });
+      },
+    },
+  ];
+}

@@ -1,0 +1,161 @@
+import {
+  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, eyewearCovering, localDate,
+  type BookingCheckDto, type BookingTarget, type TimelineCheck,
+} from '@femtoslot/shared';
+import type { EntityManager } from 'typeorm';
+import type { SessionUser } from '../../lib/auth/session';
+import { AppError } from '../../lib/errors/app-error';
+import { Account } from '../accounts/account.entity';
+import { FacilitySettings } from '../facility/facility-settings.entity';
+import type { Configuration } from '../instruments/configuration.entity';
+import { Organisation } from '../organisations/organisation.entity';
+import { EyewearItem } from '../safety/eyewear-item.entity';
+import { TrainingRecord } from '../safety/training-record.entity';
+import { activeBlocksBetween, loadInstrumentTimeline, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
+
+export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
+
+export interface Problem {
+  code: string;
+  message: string;
+  status: number;
+  details?: unknown;
+}
+
+export interface BookingRequest {
+  instrumentId: string;
+  configurationId: string;
+  startsAt: Date;
+  endsAt: Date;
+  target: BookingTarget;
+  accountId: string;
+  /** The booking's owner (the actor, or the owner when staff move a booking). */
+  owner: SessionUser;
+  excludeId?: string;
+}
+
+export interface Evaluation {
+  problems: Problem[];
+  timeline: InstrumentTimeline;
+  configuration: Configuration | null;
+  organisation: Organisation;
+  status: 'requested' | 'approved';
+  check: TimelineCheck | null;
+  dto: BookingCheckDto;
+}
+
+const HOUR = 3_600_000;
+const fmt = (d: Date) => d.toISOString().replace(':00.000Z', 'Z');
+
+/** Every rule a booking must pass, gathered (not thrown) so the request form can show them all at once. */
+export async function evaluateBooking(m: EntityManager, req: BookingRequest, opts: { lock: boolean; now?: Date; skipPolicy?: boolean }): Promise<Evaluation> {
+  const now = opts.now ?? new Date();
+  const problems: Problem[] = [];
+  const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+  const p = facility.policies;
+  const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: req.owner.organisationId });
+  const external = organisation.kind !== 'internal';
+  const timeline = await loadInstrumentTimeline(m, req.instrumentId, { lock: opts.lock });
+  const configuration = timeline.configurations.get(req.configurationId) ?? null;
+
+  if (!bookingRoles.has(req.owner.role)) problems.push({ code: 'forbidden', message: `As ${req.owner.role} you cannot book beam time`, status: 403 });
+
+  const account = await m.getRepository(Account).findOneBy({ id: req.accountId });
+  const sessionDate = localDate(req.startsAt, facility.timeZone);
+  if (!account || account.organisationId !== req.owner.organisationId) {
+    problems.push({ code: 'account_unusable', message: 'That account does not belong to your organisation', status: 422 });
+  } else if (account.status !== 'approved') {
+    problems.push({ code: 'account_unusable', message: `The account "${account.name}" is ${account.status === 'pending' ? 'waiting for approval by a PI' : 'inactive'}`, status: 422 });
+  } else if (account.kind === 'external' && account.poExpiresOn && account.poExpiresOn < sessionDate) {
+    problems.push({ code: 'account_unusable', message: `The purchase order ${account.poNumber ?? ''} on "${account.name}" expires on ${account.poExpiresOn}, before the session`, status: 422 });
+  }
+
+  if (!opts.skipPolicy) {
+    const hours = (req.endsAt.getTime() - req.startsAt.getTime()) / HOUR;
+    if (hours < p.minBookingHours || hours > p.maxBookingHours) {
+      problems.push({ code: 'rule_violation', message: `A booking lasts between ${p.minBookingHours} and ${p.maxBookingHours} hours; this one is ${Number(hours.toFixed(2))} h`, status: 422, details: { rule: 'length' } });
+    }
+    if (req.startsAt.getTime() < now.getTime()) problems.push({ code: 'rule_violation', message: 'The start is in the past', status: 422, details: { rule: 'past' } });
+    if (req.startsAt.getTime() > now.getTime() + p.horizonDays * 24 * HOUR) {
+      problems.push({ code: 'rule_violation', message: `Beam time can be booked at most ${p.horizonDays} days ahead`, status: 422, details: { rule: 'horizon' } });
+    }
+    if (external && req.startsAt.getTime() < now.getTime() + p.externalLeadHours * HOUR) {
+      problems.push({ code: 'rule_violation', message: `External requests need at least ${p.externalLeadHours} hours' notice so that staff can review them`, status: 422, details: { rule: 'lead_time' } });
+    }
+  }
+
+  let feasibility: ReturnType<typeof checkTargetFeasibility> | null = null;
+  if (!configuration || !configuration.active) {
+    problems.push({ code: 'out_of_range', message: 'That configuration does not belong to this instrument', status: 422 });
+  } else {
+    feasibility = checkTargetFeasibility(req.target, { outputKind: configuration.outputKind, minNm: configuration.minNm, maxNm: configuration.maxNm, pumpNm: timeline.instrument.pumpNm ?? undefined, name: configuration.name });
+    for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm } });
+  }
+
+  const training = await m.createQueryBuilder(TrainingRecord, 't')
+    .where('t.user_id = :id AND t.completed_on <= :d AND t.expires_on >= :d', { id: req.owner.id, d: localDate(req.endsAt, facility.timeZone) }).getCount();
+  if (training === 0) problems.push({ code: 'training_expired', message: `${req.owner.name} has no laser-safety training valid on ${sessionDate}; renew it with the laser-safety officer before booking`, status: 422 });
+
+  let eyewear: EyewearItem[] = [];
+  const onTable = feasibility?.feasible ? feasibility.onTable : [];
+  if (configuration && feasibility?.feasible) {
+    const items = await m.getRepository(EyewearItem).findBy({ active: true });
+    eyewear = eyewearCovering(onTable, items, configuration.requiredOd);
+    if (eyewear.length === 0) {
+      problems.push({ code: 'no_eyewear', message: `No eyewear on the list covers every wavelength on the table at OD ≥ ${configuration.requiredOd}; ask the laser-safety officer`, status: 422, details: { onTable, requiredOd: configuration.requiredOd } });
+    }
+  }
+
+  let check: TimelineCheck | null = null;
+  if (configuration && feasibility?.feasible && req.endsAt > req.startsAt) {
+    const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
+    const blocks = await activeBlocksBetween(m, req.instrumentId, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR));
+    const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
+    check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.model, horizonEnd });
+    const details = {
+      neededMinutes: Math.max(check.before?.neededMinutes ?? 0, check.after?.neededMinutes ?? 0),
+      availableMinutes: Math.min(check.before?.availableMinutes ?? Infinity, check.after?.availableMinutes ?? Infinity),
+      earliestStart: check.earliestStart?.toISOString() ?? null,
+      before: check.before, after: check.after,
+    };
+    if (!Number.isFinite(details.availableMinutes)) details.availableMinutes = 0;
+    const suggestion = check.earliestStart ? ` The earliest start that works is ${fmt(check.earliestStart)}.` : ' No later start within the booking horizon works.';
+    if (check.overlaps.length > 0) {
+      problems.push({ code: 'overlap', message: `That time overlaps another booking or a maintenance window.${suggestion}`, status: 409, details: { ...details, overlaps: check.overlaps } });
+    } else {
+      const short = [check.before, check.after].filter((n) => n && n.shortfallMinutes > 0);
+      if (short.length > 0) {
+        const worst = short.sort((a, b) => b!.shortfallMinutes - a!.shortfallMinutes)[0]!;
+        problems.push({
+          code: 'changeover_gap', status: 409,
+          message: `The changeover needs ${worst.neededMinutes} min but only ${worst.availableMinutes} min are free between this and the neighbouring block.${suggestion}`,
+          details: { ...details, neededMinutes: worst.neededMinutes, availableMinutes: worst.availableMinutes },
+        });
+      }
+    }
+  }
+
+  const status: 'requested' | 'approved' = external && req.owner.role !== 'staff' ? 'requested' : 'approved';
+  const dto: BookingCheckDto = {
+    ok: problems.length === 0,
+    problems: problems.map(({ code, message, details }) => ({ code, message, details })),
+    derived: feasibility?.derived ?? {},
+    onTable: onTable.map((b) => ({ role: b.role, minNm: b.minNm, maxNm: b.maxNm })),
+    requiredOd: configuration?.requiredOd ?? 0,
+    eyewear: eyewear.map((e) => ({ id: e.id, label: e.label })),
+    timeline: {
+      before: check?.before ?? null, after: check?.after ?? null, overlaps: check?.overlaps ?? [],
+      earliestStart: check?.earliestStart?.toISOString() ?? null,
+    },
+    status,
+    cancellationPolicy: describeCancellationPolicy(p),
+  };
+  return { problems, timeline, configuration, organisation, status, check, dto };
+}
+
+/** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */
+export function throwFirst(problems: Problem[]): void {
+  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'training_expired', 'no_eyewear', 'overlap', 'changeover_gap'];
+  const first = [...problems].sort((a, b) => order.indexOf(a.code) - order.indexOf(b.code))[0];
+  if (first) throw new AppError(first.code, first.message, first.status, first.details);
+}

@@ -1,0 +1,28 @@
+import { In, type EntityManager } from 'typeorm';
+import { Account } from '../accounts/account.entity';
+import { Configuration } from '../instruments/configuration.entity';
+import { Organisation } from '../organisations/organisation.entity';
+import { User } from '../users/user.entity';
+import type { BookingLookups } from './booking.dto';
+import type { TimelineBlock } from './timeline-block.entity';
+
+const ids = (values: (string | null)[]) => [...new Set(values.filter((v): v is string => !!v))];
+
+/** Loads the names a set of bookings refers to, in four queries whatever the number of bookings. */
+export async function loadLookups(m: EntityManager, blocks: TimelineBlock[]): Promise<BookingLookups> {
+  const bookings = blocks.filter((b) => b.kind === 'booking');
+  const [configs, users, orgs, accounts] = await Promise.all([
+    m.getRepository(Configuration).findBy({ id: In(ids(bookings.map((b) => b.configurationId))) }),
+    m.getRepository(User).findBy({ id: In(ids(bookings.map((b) => b.userId))) }),
+    m.getRepository(Organisation).findBy({ id: In(ids(bookings.map((b) => b.organisationId))) }),
+    m.getRepository(Account).findBy({ id: In(ids(bookings.map((b) => b.accountId))) }),
+  ]);
+  const byId = <T extends { id: string }>(rows: T[]) => new Map(rows.map((r) => [r.id, r]));
+  const c = byId(configs), u = byId(users), o = byId(orgs), a = byId(accounts);
+  return {
+    configurationKey: (id) => ({ key: c.get(id)?.key ?? 'unknown', outputKind: c.get(id)?.outputKind ?? 'fundamental' }),
+    userName: (id) => u.get(id)?.name ?? 'Unknown user',
+    organisationName: (id) => o.get(id)?.name ?? 'Unknown organisation',
+    accountName: (id) => a.get(id)?.name ?? 'Unknown account',
+  };
+}

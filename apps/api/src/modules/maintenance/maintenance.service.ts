@@ -1,0 +1,98 @@
+import { randomUUID } from 'node:crypto';
+import { findAlternativeSlots, type MaintenanceInput } from '@femtoslot/shared';
+import { In, LessThan, MoreThan, Not, type EntityManager } from 'typeorm';
+import type { SessionUser } from '../../lib/auth/session';
+import type { AppContext } from '../../lib/context';
+import { AppError, notFound } from '../../lib/errors/app-error';
+import { recordAudit } from '../audit/audit.service';
+import { FacilitySettings } from '../facility/facility-settings.entity';
+import { queueBookingMail } from '../bookings/booking-mail';
+import { auditSnapshot, toBookingDto, toMaintenanceDto } from '../bookings/booking.dto';
+import { loadLookups } from '../bookings/lookups';
+import { TimelineBlock } from '../bookings/timeline-block.entity';
+import { activeBlocksBetween, loadInstrumentTimeline, stateOf, toEngineBlocks } from '../bookings/timeline.repository';
+
+const DAY = 86_400_000;
+
+export function maintenanceService(ctx: AppContext) {
+  /**
+   * Marks every active booking the window covers — or that starts inside the warm-up after it — as displaced, in the
+   * caller's transaction, and offers each owner three free slots of the same length and configuration.
+   */
+  async function displaceUnder(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; startsAt: Date; endsAt: Date; reason: string }, requestId?: string) {
+    const timeline = await loadInstrumentTimeline(m, window.instrumentId, { lock: true });
+    const warmupEnd = new Date(window.endsAt.getTime() + timeline.model.warmupAfterMaintenanceMinutes * 60_000);
+    const victims = await m.getRepository(TimelineBlock).find({
+      where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(warmupEnd), endsAt: MoreThan(window.startsAt) },
+      order: { startsAt: 'ASC' },
+      lock: { mode: 'pessimistic_write' },
+    });
+    for (const v of victims) {
+      const before = auditSnapshot(v);
+      await m.getRepository(TimelineBlock).update({ id: v.id }, { status: 'displaced', displacedBy: window.id, cancellationFeePercent: 0, sequence: v.sequence + 1 });
+      Object.assign(v, { status: 'displaced', displacedBy: window.id, cancellationFeePercent: 0, sequence: v.sequence + 1 });
+      await recordAudit(m, { actorUserId: actor.id, action: 'booking.displaced', entityType: 'booking', entityId: v.id, before, after: { ...auditSnapshot(v), maintenanceId: window.id }, requestId });
+    }
+    return { victims, timeline };
+  }
+
+  async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
+    if (victims.length === 0) return;
+    const timeline = await loadInstrumentTimeline(m, instrumentId);
+    const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+    const now = Date.now();
+    const horizonEnd = new Date(now + facility.policies.horizonDays * DAY);
+    const blocks = toEngineBlocks(await activeBlocksBetween(m, instrumentId, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY)), timeline.configurations);
+    for (const v of victims) {
+      const state = stateOf(v, timeline.configurations);
+      const duration = v.endsAt.getTime() - v.startsAt.getTime();
+      // Start looking from the original slot (or from now plus the external lead time, if that is later).
+      const from = Math.max(v.startsAt.getTime(), now + facility.policies.externalLeadHours * 3_600_000);
+      const slots = state ? findAlternativeSlots(blocks, { start: new Date(from), end: new Date(from + duration), state }, { model: timeline.model, count: 3, horizonEnd, stepMinutes: 120 }) : [];
+      v.alternatives = slots.map((s) => ({ startsAt: s.start.toISOString(), endsAt: s.end.toISOString() }));
+      await m.getRepository(TimelineBlock).update({ id: v.id }, { alternatives: v.alternatives });
+      await queueBookingMail(ctx, m, 'displaced', v, { reason });
+    }
+  }
+
+  async function create(actor: SessionUser, input: MaintenanceInput, requestId?: string) {
+    return ctx.db.transaction(async (m) => {
+      const window = { id: randomUUID(), instrumentId: input.instrumentId, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), reason: input.reason };
+      const { victims } = await displaceUnder(m, actor, window, requestId);
+      const saved = await m.getRepository(TimelineBlock).save(m.getRepository(TimelineBlock).create({ ...window, kind: 'maintenance', status: 'scheduled', createdBy: actor.id }));
+      await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.scheduled', entityType: 'maintenance', entityId: saved.id, after: auditSnapshot(saved), requestId });
+      await offerAlternatives(m, victims, window.instrumentId, input.reason);
+      const look = await loadLookups(m, victims);
+      return { maintenance: toMaintenanceDto(saved), displaced: victims.map((v) => toBookingDto(v, actor, look)) };
+    });
+  }
+
+  async function update(actor: SessionUser, id: string, input: { startsAt: string; endsAt: string; reason?: string }, requestId?: string) {
+    return ctx.db.transaction(async (m) => {
+      const w = await m.getRepository(TimelineBlock).findOne({ where: { id, kind: 'maintenance', status: Not('cancelled') }, lock: { mode: 'pessimistic_write' } });
+      if (!w) throw notFound('Maintenance window');
+      const before = auditSnapshot(w);
+      const next = { id, instrumentId: w.instrumentId, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), reason: input.reason ?? w.reason ?? '' };
+      const { victims } = await displaceUnder(m, actor, next, requestId);
+      Object.assign(w, { startsAt: next.startsAt, endsAt: next.endsAt, reason: next.reason });
+      await m.getRepository(TimelineBlock).save(w);
+      await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.updated', entityType: 'maintenance', entityId: id, before, after: auditSnapshot(w), requestId });
+      await offerAlternatives(m, victims, w.instrumentId, next.reason);
+      const look = await loadLookups(m, victims);
+      return { maintenance: toMaintenanceDto(w), displaced: victims.map((v) => toBookingDto(v, actor, look)) };
+    });
+  }
+
+  async function remove(actor: SessionUser, id: string, requestId?: string) {
+    await ctx.db.transaction(async (m) => {
+      const w = await m.getRepository(TimelineBlock).findOne({ where: { id, kind: 'maintenance' }, lock: { mode: 'pessimistic_write' } });
+      if (!w) throw notFound('Maintenance window');
+      if (w.status === 'cancelled') throw new AppError('invalid_state', 'That maintenance window is already cancelled', 409);
+      const before = auditSnapshot(w);
+      await m.getRepository(TimelineBlock).update({ id }, { status: 'cancelled' });
+      await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.cancelled', entityType: 'maintenance', entityId: id, before, after: { ...before, status: 'cancelled' }, requestId });
+    });
+  }
+
+  return { create, update, remove };
+}

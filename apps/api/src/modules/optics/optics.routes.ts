@@ -1,0 +1,63 @@
+import { analyseAutocorrelation, analyseAutocorrelationCsv, checkTargetFeasibility, describeWavelength, opaMixing, bookingTargetSchema } from '@femtoslot/shared';
+import multer from 'multer';
+import { z } from 'zod';
+import type { AppContext } from '../../lib/context';
+import type { RouteDef } from '../../lib/auth/routes';
+import { AppError, notFound } from '../../lib/errors/app-error';
+import { Configuration } from '../instruments/configuration.entity';
+import { Instrument } from '../instruments/instrument.entity';
+
+const mixingQuerySchema = z.object({ pumpNm: z.coerce.number().positive().finite(), signalNm: z.coerce.number().positive().finite() });
+const feasibilityInputSchema = z.intersection(z.object({ configurationId: z.uuid() }), bookingTargetSchema);
+const shapeSchema = z.enum(['gaussian', 'sech2']);
+const autocorrelationJsonSchema = z.object({
+  shape: shapeSchema,
+  points: z.array(z.tuple([z.number().finite(), z.number().finite()])).max(200_000),
+});
+// A trace is a small text file; 2 MB is generous and keeps the upload in memory.
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 2 * 1024 * 1024, files: 1, fields: 5 } });
+
+export function opticsRoutes(ctx: AppContext): RouteDef[] {
+  return [
+    {
+      method: 'get', path: '/optics/mixing', access: 'signed_in',
+      handler: (req, res) => {
+        const q = mixingQuerySchema.parse(req.query);
+        const mix = opaMixing(q.pumpNm, q.signalNm);
+        if (mix.degenerate || mix.dfgNm === null) {
+          throw new AppError('degenerate', `Signal ${q.signalNm} nm is at degeneracy (twice the pump): signal and idler coincide and DFG is undefined`, 422, { pumpNm: q.pumpNm, signalNm: q.signalNm });
+        }
+        res.json({
+          pumpNm: q.pumpNm, signalNm: q.signalNm, idlerNm: mix.idlerNm, dfgNm: mix.dfgNm,
+          pump: describeWavelength(q.pumpNm), signal: describeWavelength(q.signalNm), idler: describeWavelength(mix.idlerNm), dfg: describeWavelength(mix.dfgNm),
+        });
+      },
+    },
+    {
+      method: 'post', path: '/optics/feasibility', access: 'signed_in',
+      handler: async (req, res) => {
+        const input = feasibilityInputSchema.parse(req.body);
+        const c = await ctx.db.getRepository(Configuration).findOneBy({ id: input.configurationId });
+        if (!c) throw notFound('Configuration');
+        const instrument = await ctx.db.getRepository(Instrument).findOneByOrFail({ id: c.instrumentId });
+        const target = 'targetNm' in input ? { targetNm: input.targetNm } : { minNm: input.minNm, maxNm: input.maxNm };
+        const r = checkTargetFeasibility(target, { outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm, pumpNm: instrument.pumpNm ?? undefined, name: c.name });
+        res.json({ ...r, configuration: { id: c.id, name: c.name, minNm: c.minNm, maxNm: c.maxNm, requiredOd: c.requiredOd } });
+      },
+    },
+    {
+      method: 'post', path: '/optics/autocorrelation', access: 'signed_in', before: [upload.single('trace')],
+      handler: (req, res) => {
+        let result;
+        if (req.file) {
+          const shape = shapeSchema.parse(req.body?.shape);
+          result = analyseAutocorrelationCsv(req.file.buffer.toString('utf8'), shape);
+        } else {
+          const body = autocorrelationJsonSchema.parse(req.body);
+          result = analyseAutocorrelation(body.points as Array<[number, number]>, body.shape);
+        }
+        res.json({ acFwhmFs: result.autocorrelationFwhmFs, pulseFwhmFs: result.pulseFwhmFs, shape: result.shape, baseline: result.baseline, peakDelayFs: result.peakDelayFs });
+      },
+    },
+  ];
+}
