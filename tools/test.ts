@@ -29,7 +29,8 @@ async function main(): Promise<number> {
       // Durability is irrelevant for a throwaway test cluster; these make it several times faster.
       pgTuning: ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=300'],
     });
-    const webDist = await buildWeb();
+    // For quick API-only iterations; CI always builds (the browser suite needs the bundle).
+    const webDist = process.env.FEMTOSLOT_SKIP_WEB_BUILD && !process.env.CI ? '' : await buildWeb();
     mkdirSync(artifactsDir, { recursive: true });
     const report = path.join(artifactsDir, 'vitest-report.json');
     rmSync(report, { force: true });

@@ -26,3 +26,14 @@ export function linkToken(mail: CapturedMail): string {
   if (!m) throw new Error(`no token link in mail "${mail.subject}"`);
   return m[1]!;
 }
+
+/** The bytes of one attachment as captured (maildev 3: GET /api/email/:id/attachment/:filename). */
+export async function fetchAttachment(mail: CapturedMail, index = 0): Promise<string> {
+  const a = mail.attachments?.[index] as { generatedFileName?: string; fileName?: string } | undefined;
+  if (!a) throw new Error(`mail "${mail.subject}" has no attachment ${index}`);
+  for (const name of [a.generatedFileName, a.fileName].filter(Boolean) as string[]) {
+    const r = await fetch(`${process.env.TEST_MAILDEV_URL}/api/email/${mail.id}/attachment/${encodeURIComponent(name)}`);
+    if (r.ok) return r.text();
+  }
+  throw new Error(`attachment ${index} of "${mail.subject}" could not be fetched`);
+}

@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import net from 'node:net';
 import type { Role } from '@femtoslot/shared';
 import supertest from 'supertest';
 import { loadEnv, type Env } from '../config/env';
@@ -59,4 +60,15 @@ export async function makePeople(t: TestApi, roles: Role[], password = 'correct 
     users[role] = await db.getRepository(User).save({ email: `${role}.${tag}@example.test`, name: `${role} ${tag}`, role, organisationId: org.id, passwordHash: hash, active: true });
   }
   return { org, users, tag, password };
+}
+
+export function freeLoopbackPort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
 }

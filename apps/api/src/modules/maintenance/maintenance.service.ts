@@ -29,11 +29,16 @@ export function maintenanceService(ctx: AppContext) {
     });
     for (const v of victims) {
       const before = auditSnapshot(v);
-      await m.getRepository(TimelineBlock).update({ id: v.id }, { status: 'displaced', displacedBy: window.id, cancellationFeePercent: 0, sequence: v.sequence + 1 });
+      // displaced_by is linked once the window row exists (see linkVictims): the window is inserted after its victims step aside.
+      await m.getRepository(TimelineBlock).update({ id: v.id }, { status: 'displaced', cancellationFeePercent: 0, sequence: v.sequence + 1 });
       Object.assign(v, { status: 'displaced', displacedBy: window.id, cancellationFeePercent: 0, sequence: v.sequence + 1 });
       await recordAudit(m, { actorUserId: actor.id, action: 'booking.displaced', entityType: 'booking', entityId: v.id, before, after: { ...auditSnapshot(v), maintenanceId: window.id }, requestId });
     }
     return { victims, timeline };
+  }
+
+  async function linkVictims(m: EntityManager, victims: TimelineBlock[], windowId: string) {
+    if (victims.length) await m.getRepository(TimelineBlock).update({ id: In(victims.map((v) => v.id)) }, { displacedBy: windowId });
   }
 
   async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
@@ -60,6 +65,7 @@ export function maintenanceService(ctx: AppContext) {
       const window = { id: randomUUID(), instrumentId: input.instrumentId, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), reason: input.reason };
       const { victims } = await displaceUnder(m, actor, window, requestId);
       const saved = await m.getRepository(TimelineBlock).save(m.getRepository(TimelineBlock).create({ ...window, kind: 'maintenance', status: 'scheduled', createdBy: actor.id }));
+      await linkVictims(m, victims, saved.id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.scheduled', entityType: 'maintenance', entityId: saved.id, after: auditSnapshot(saved), requestId });
       await offerAlternatives(m, victims, window.instrumentId, input.reason);
       const look = await loadLookups(m, victims);
@@ -76,6 +82,7 @@ export function maintenanceService(ctx: AppContext) {
       const { victims } = await displaceUnder(m, actor, next, requestId);
       Object.assign(w, { startsAt: next.startsAt, endsAt: next.endsAt, reason: next.reason });
       await m.getRepository(TimelineBlock).save(w);
+      await linkVictims(m, victims, id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.updated', entityType: 'maintenance', entityId: id, before, after: auditSnapshot(w), requestId });
       await offerAlternatives(m, victims, w.instrumentId, next.reason);
       const look = await loadLookups(m, victims);

@@ -1,26 +1,9 @@
-import net from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApi, type TestApi } from '../../../test-support/test-api';
-
-/** A loopback TCP relay to PostgreSQL that the test can cut and restore, to make the database unreachable. */
-function relay(targetPort: number) {
-  const sockets = new Set<net.Socket>();
-  let server: net.Server | null = null;
-  let port = 0;
-  const open = () => new Promise<number>((resolve) => {
-    server = net.createServer((client) => {
-      const upstream = net.connect(targetPort, '127.0.0.1');
-      for (const s of [client, upstream]) { sockets.add(s); s.on('close', () => sockets.delete(s)); s.on('error', () => s.destroy()); }
-      client.pipe(upstream).pipe(client);
-    });
-    server.listen(port, '127.0.0.1', () => { port = (server!.address() as net.AddressInfo).port; resolve(port); });
-  });
-  const cut = () => new Promise<void>((resolve) => { for (const s of sockets) s.destroy(); server!.close(() => resolve()); });
-  return { open, cut };
-}
+import { tcpRelay } from '../../../test-support/tcp-relay';
 
 let t: TestApi;
-const r = relay(Number(new URL(process.env.TEST_DATABASE_URL ?? 'postgres://x@127.0.0.1:5432/x').port));
+const r = tcpRelay(Number(new URL(process.env.TEST_DATABASE_URL ?? 'postgres://x@127.0.0.1:5432/x').port));
 beforeAll(async () => {
   const port = await r.open();
   const url = new URL(process.env.TEST_DATABASE_URL!);
