@@ -2,6 +2,6 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
   test: {
-    projects: ['packages/shared', 'apps/api', 'tests', 'infra/local-fakes'],
+    projects: ['packages/shared', 'apps/api', 'tests', 'infra/local-fakes', 'apps/web'],
   },
 });

@@ -43,6 +43,9 @@ export const routes: RouteObject[] = [
               areaRoute('calendar', paths.calendar, async () => ({
                 Component: (await import('./routes/calendar/calendar')).CalendarPage,
               })),
+              areaRoute('calendar', paths.planDay, async () => ({
+                Component: (await import('./routes/calendar/plan-day')).PlanDayPage,
+              })),
               areaRoute('sessions', paths.sessions, async () => ({
                 Component: (await import('./routes/sessions/sessions')).SessionsPage,
               })),

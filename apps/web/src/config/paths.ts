@@ -5,6 +5,7 @@ export const paths = {
   resetPassword: '/reset-password',
   acceptInvitation: '/accept-invitation',
   calendar: '/calendar',
+  planDay: '/calendar/plan',
   sessions: '/sessions',
   billing: '/billing',
   reports: '/reports',

@@ -19,3 +19,45 @@ export const organisationKeys = {
   all: ['organisations'] as const,
   list: () => [...organisationKeys.all, 'list'] as const,
 };
+
+export interface CalendarRange {
+  from: string;
+  to: string;
+  instrumentId?: string;
+}
+
+export const bookingKeys = {
+  all: ['bookings'] as const,
+  calendars: () => [...bookingKeys.all, 'calendar'] as const,
+  calendar: (range: CalendarRange) => [...bookingKeys.calendars(), range] as const,
+  details: () => [...bookingKeys.all, 'detail'] as const,
+  detail: (id: string) => [...bookingKeys.details(), id] as const,
+  needsRebooking: () => [...bookingKeys.all, 'needs-rebooking'] as const,
+  pending: () => [...bookingKeys.all, 'pending'] as const,
+  check: (body: unknown) => [...bookingKeys.all, 'check', body] as const,
+};
+
+export const instrumentKeys = {
+  all: ['instruments'] as const,
+  list: () => [...instrumentKeys.all, 'list'] as const,
+};
+
+export const configurationKeys = {
+  all: ['configurations'] as const,
+  list: (instrumentId?: string) => [...configurationKeys.all, 'list', instrumentId ?? 'all'] as const,
+};
+
+export const accountKeys = {
+  all: ['accounts'] as const,
+  list: () => [...accountKeys.all, 'list'] as const,
+};
+
+export const eyewearKeys = {
+  all: ['eyewear'] as const,
+  list: () => [...eyewearKeys.all, 'list'] as const,
+};
+
+export const calendarFeedKeys = {
+  all: ['calendar-feed'] as const,
+  url: () => [...calendarFeedKeys.all, 'url'] as const,
+};

@@ -7,10 +7,12 @@ export interface DialogProps {
   description?: ReactNode;
   children: ReactNode;
   testId?: string;
+  /** 'lg' for long forms such as a beam-time request */
+  size?: 'md' | 'lg';
 }
 
 /** A modal built on the native <dialog>: focus trapping, Escape and the backdrop come from the browser. */
-export function Dialog({ open, onClose, title, description, children, testId }: DialogProps) {
+export function Dialog({ open, onClose, title, description, children, testId, size = 'md' }: DialogProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
 
@@ -31,7 +33,7 @@ export function Dialog({ open, onClose, title, description, children, testId }: 
         event.preventDefault();
         onClose();
       }}
-      className="m-auto w-[min(32rem,calc(100vw-2rem))] rounded-2xl border border-line bg-panel p-0 text-ink shadow-xl backdrop:bg-black/40"
+      className={`m-auto ${size === 'lg' ? 'w-[min(56rem,calc(100vw-2rem))]' : 'w-[min(32rem,calc(100vw-2rem))]'} rounded-2xl border border-line bg-panel p-0 text-ink shadow-xl backdrop:bg-black/40`}
     >
       {open && (
         <div className="p-6">

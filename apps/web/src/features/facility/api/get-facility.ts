@@ -3,8 +3,20 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '../../../lib/api-client';
 import { facilityKeys } from '../../../lib/query-keys';
 
+export interface FacilityPolicies {
+  minBookingHours: number;
+  maxBookingHours: number;
+  horizonDays: number;
+  externalLeadHours: number;
+  cancellationFreeHours: number;
+  cancellationHalfFeeHours: number;
+}
+
+/** The facility as GET /api/facility answers it; policies arrived with the booking API. */
+export type FacilityDetail = Facility & { policies?: FacilityPolicies };
+
 export const getFacility = (signal?: AbortSignal) =>
-  apiClient.get<{ facility: Facility }>('/api/facility', signal).then((body) => body.facility);
+  apiClient.get<{ facility: FacilityDetail }>('/api/facility', signal).then((body) => body.facility);
 
 export const facilityQueryOptions = () =>
   queryOptions({
