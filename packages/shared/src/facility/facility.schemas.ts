@@ -21,3 +21,29 @@ export const eyewearBandSchema = z
   .object({ minNm: z.number().positive(), maxNm: z.number().positive(), od: z.number().min(0).max(12) })
   .refine((b) => b.minNm < b.maxNm, { message: 'minNm must be below maxNm' });
 export type EyewearBand = z.infer<typeof eyewearBandSchema>;
+
+/** Booking and cancellation rules a facility sets (PRODUCT.md §4 defaults in the demo seed). */
+export interface FacilityPolicies {
+  minBookingHours: number;
+  maxBookingHours: number;
+  horizonDays: number;
+  externalLeadHours: number;
+  cancellationFreeHours: number;
+  cancellationHalfFeeHours: number;
+}
+
+/** A configuration as GET /api/configurations answers it. */
+export interface ConfigurationDto {
+  id: string;
+  instrumentId: string;
+  key: string;
+  name: string;
+  outputKind: OutputKind;
+  minNm: number;
+  maxNm: number;
+  defaultNm: number;
+  rateClass: RateClass;
+  requiredOd: number;
+  retuneMinutesPerNm: number | null;
+  active: boolean;
+}

@@ -1,13 +1,7 @@
+import type { FacilityPolicies } from '@femtoslot/shared';
 import { Column, Entity, PrimaryColumn, UpdateDateColumn } from 'typeorm';
 
-export interface FacilityPolicies {
-  minBookingHours: number;
-  maxBookingHours: number;
-  horizonDays: number;
-  externalLeadHours: number;
-  cancellationFreeHours: number;
-  cancellationHalfFeeHours: number;
-}
+export type { FacilityPolicies };
 
 @Entity('facility_settings')
 export class FacilitySettings {

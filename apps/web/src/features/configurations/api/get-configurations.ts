@@ -1,21 +1,10 @@
-import type { OutputKind, RateClass } from '@femtoslot/shared';
+import type { ConfigurationDto } from '@femtoslot/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '../../../lib/api-client';
 import { configurationKeys } from '../../../lib/query-keys';
 
-export interface Configuration {
-  id: string;
-  instrumentId: string;
-  key: string;
-  name: string;
-  outputKind: OutputKind;
-  minNm: number;
-  maxNm: number;
-  defaultNm: number;
-  rateClass: RateClass;
-  requiredOd: number;
-  retuneMinutesPerNm: number;
-}
+/** Shared with the API so the two cannot drift. */
+export type Configuration = ConfigurationDto;
 
 export const getConfigurations = (instrumentId?: string, signal?: AbortSignal) =>
   apiClient

@@ -1,16 +1,9 @@
-import type { Facility } from '@femtoslot/shared';
+import type { Facility, FacilityPolicies } from '@femtoslot/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '../../../lib/api-client';
 import { facilityKeys } from '../../../lib/query-keys';
 
-export interface FacilityPolicies {
-  minBookingHours: number;
-  maxBookingHours: number;
-  horizonDays: number;
-  externalLeadHours: number;
-  cancellationFreeHours: number;
-  cancellationHalfFeeHours: number;
-}
+export type { FacilityPolicies };
 
 /** The facility as GET /api/facility answers it; policies arrived with the booking API. */
 export type FacilityDetail = Facility & { policies?: FacilityPolicies };
