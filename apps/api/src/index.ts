@@ -10,6 +10,7 @@ import { Outbox } from './lib/mail/outbox';
 import type { AppContext } from './lib/context';
 import { createApp } from './server';
 import { startBookingJobs } from './modules/bookings/bookings.service';
+import { startUsageJobs } from './modules/usage/usage.service';
 
 export interface RunningApi {
   url: string;
@@ -28,7 +29,10 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
   });
   await outbox.start({ work: opts.mailWorker ?? true });
   const ctx: AppContext = { db, env, logger, outbox };
-  if (opts.mailWorker ?? true) await startBookingJobs(ctx);
+  if (opts.mailWorker ?? true) {
+    await startBookingJobs(ctx);
+    await startUsageJobs(ctx);
+  }
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));

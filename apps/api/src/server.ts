@@ -22,6 +22,9 @@ import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
 import { opticsRoutes } from './modules/optics/optics.routes';
 import { plannerRoutes } from './modules/planner/planner.routes';
 import { eyewearRoutes } from './modules/safety/eyewear.routes';
+import { attachmentsRoutes } from './modules/attachments/attachments.routes';
+import { reportsRoutes } from './modules/reports/reports.routes';
+import { usageRoutes } from './modules/usage/usage.routes';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -38,6 +41,9 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...plannerRoutes(ctx),
     ...calendarFeedRoutes(ctx),
     ...eyewearRoutes(ctx),
+    ...usageRoutes(ctx),
+    ...attachmentsRoutes(ctx),
+    ...reportsRoutes(ctx),
   ];
 }
 

@@ -2,6 +2,10 @@ import 'reflect-metadata';
 import { DataSource } from 'typeorm';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
 import { BookingWorkflow1764720000000 } from './migrations/1764720000000-booking-workflow';
+import { UsageLogs1764806400000 } from './migrations/1764806400000-usage-logs';
+import { Attachment } from '../modules/attachments/attachment.entity';
+import { UsageLog } from '../modules/usage/usage-log.entity';
+import { UsageSegment } from '../modules/usage/usage-segment.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
 import { User } from '../modules/users/user.entity';
 import { AuthToken } from '../modules/auth/auth-token.entity';
@@ -17,8 +21,8 @@ import { AuditEvent } from '../modules/audit/audit-event.entity';
 import { OutboxMessage } from '../lib/mail/outbox-message.entity';
 
 export const entities = [Organisation, User, AuthToken, Account, FacilitySettings, Instrument, Configuration,
-  ChangeoverPair, TimelineBlock, TrainingRecord, EyewearItem, AuditEvent, OutboxMessage];
-export const migrations = [InitialSchema1764633600000, BookingWorkflow1764720000000];
+  ChangeoverPair, TimelineBlock, TrainingRecord, EyewearItem, AuditEvent, OutboxMessage, Attachment, UsageLog, UsageSegment];
+export const migrations = [InitialSchema1764633600000, BookingWorkflow1764720000000, UsageLogs1764806400000];
 
 export function createDataSource(url: string, poolSize = 10): DataSource {
   return new DataSource({

@@ -30,6 +30,10 @@ export interface FacilityPolicies {
   externalLeadHours: number;
   cancellationFreeHours: number;
   cancellationHalfFeeHours: number;
+  /** Minutes a logged start or end may differ from the booking before staff are asked to look (default 30). */
+  usageGraceMinutes?: number;
+  /** The pump's pulse-duration specification in fs, drawn on the pulse trend (none when unset). */
+  pumpPulseSpecFs?: number | null;
 }
 
 /** A configuration as GET /api/configurations answers it. */

@@ -15,6 +15,9 @@ export const demoFacility = {
     externalLeadHours: 12,
     cancellationFreeHours: 72,
     cancellationHalfFeeHours: 24,
+    usageGraceMinutes: 30,
+    // Invented demo specification of the amplifier's pulse duration.
+    pumpPulseSpecFs: 45,
   },
 };
 

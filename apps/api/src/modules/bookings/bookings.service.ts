@@ -8,6 +8,7 @@ import { AuditEvent } from '../audit/audit-event.entity';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { User } from '../users/user.entity';
 import { queueBookingMail } from './booking-mail';
+import { USAGE_REMINDER_QUEUE } from '../usage/usage.service';
 import { auditSnapshot, canSeeDetail, facilityWideRoles, toBookingDto, toMaintenanceDto } from './booking.dto';
 import { evaluateBooking, throwFirst } from './booking-evaluation';
 import { loadLookups } from './lookups';
@@ -25,8 +26,11 @@ export function bookingsService(ctx: AppContext) {
   }
 
   async function scheduleReminder(m: EntityManager, b: TimelineBlock): Promise<void> {
+    if (b.status !== 'approved') return;
+    // Two hours after the end, the owner is reminded to log the session if no log exists by then.
+    await ctx.outbox.sendJob(USAGE_REMINDER_QUEUE, { bookingId: b.id }, { startAfter: new Date(b.endsAt.getTime() + 2 * 3_600_000) }, m);
     const at = new Date(b.startsAt.getTime() - 24 * 3_600_000);
-    if (b.status !== 'approved' || at.getTime() < Date.now()) return;
+    if (at.getTime() < Date.now()) return;
     await ctx.outbox.sendJob(REMINDER_QUEUE, { bookingId: b.id, startsAt: b.startsAt.toISOString() }, { startAfter: at }, m);
   }
 
