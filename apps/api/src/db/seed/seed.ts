@@ -13,6 +13,8 @@ import { EyewearItem } from '../../modules/safety/eyewear-item.entity';
 import { TrainingRecord } from '../../modules/safety/training-record.entity';
 import { TimelineBlock } from '../../modules/bookings/timeline-block.entity';
 import { User } from '../../modules/users/user.entity';
+import { UsageLog } from '../../modules/usage/usage-log.entity';
+import { UsageSegment } from '../../modules/usage/usage-segment.entity';
 import { demoAccounts, demoEyewear, demoFacility, demoInstruments, demoOrganisations, demoPassword, demoUsers } from './demo-data';
 
 const addDays = (isoDate: string, days: number) => {
@@ -35,6 +37,7 @@ export async function seedDemo(db: DataSource, now = new Date()): Promise<'seede
     await seedPeople(m, now);
     await seedInstruments(m);
     await seedTimeline(m, now);
+    await seedUsageLogs(m);
     return 'seeded';
   });
 }
@@ -139,4 +142,31 @@ async function seedTimeline(m: EntityManager, now: Date): Promise<void> {
     instrumentId: aurora.id, kind: 'maintenance', status: 'scheduled', startsAt: at(maintenanceDay, 8, 0), endsAt: at(maintenanceDay, 12, 0),
     reason: 'Pump laser diode service and OPA crystal cleaning', createdBy: staff.id,
   });
+}
+
+/** Logs for the completed demo sessions: invented ranges, powers and pulse durations, most confirmed by staff. */
+async function seedUsageLogs(m: EntityManager): Promise<void> {
+  const staff = await m.getRepository(User).findOneByOrFail({ email: 'staff@harrowpoint.test' });
+  const configs = new Map((await m.getRepository(Configuration).find()).map((c) => [c.id, c]));
+  const done = await m.getRepository(TimelineBlock).find({ where: { kind: 'booking', status: 'completed' }, order: { startsAt: 'ASC' } });
+  let i = 0;
+  for (const b of done) {
+    i++;
+    if (i % 5 === 0) continue; // a few sessions still wait for their log
+    const c = configs.get(b.configurationId!)!;
+    const span = Math.max(1, (c.maxNm - c.minNm) * 0.04);
+    const lo = Math.max(c.minNm, b.targetMinNm! - span * ((i % 3) + 1));
+    const hi = Math.min(c.maxNm, b.targetMaxNm! + span * ((i % 2) + 1));
+    const lateMinutes = (i % 4) * 5;
+    const log = await m.getRepository(UsageLog).save({
+      bookingId: b.id, status: i % 3 === 0 ? 'submitted' : 'confirmed', actualStartsAt: new Date(b.startsAt.getTime() + lateMinutes * 60_000), actualEndsAt: b.endsAt,
+      outsideGrace: false, notes: 'Demo log', attachmentIds: [], submittedBy: b.userId!, submittedAt: b.endsAt,
+      confirmedBy: i % 3 === 0 ? null : staff.id, confirmedAt: i % 3 === 0 ? null : new Date(b.endsAt.getTime() + 3_600_000), billedBy: null, billedAt: null,
+    } as Omit<UsageLog, 'id'>);
+    await m.getRepository(UsageSegment).insert({
+      usageLogId: log.id, configurationId: c.id, startsAt: log.actualStartsAt, endsAt: log.actualEndsAt, minNm: Math.round(lo * 10) / 10, maxNm: Math.round(hi * 10) / 10,
+      averagePowerMw: c.outputKind === 'dfg' ? 12 + (i % 5) : 250 + 20 * (i % 6), pulseFwhmFs: c.outputKind === 'fundamental' ? 38 + (i % 7) * 1.5 : null,
+      pulseShape: c.outputKind === 'fundamental' ? 'sech2' : null, traceAttachmentId: null, notes: '',
+    });
+  }
 }
