@@ -49,6 +49,9 @@ export const routes: RouteObject[] = [
               areaRoute('sessions', paths.sessions, async () => ({
                 Component: (await import('./routes/sessions/sessions')).SessionsPage,
               })),
+              areaRoute('sessions', paths.sessionLog, async () => ({
+                Component: (await import('./routes/sessions/session-log')).SessionLogPage,
+              })),
               areaRoute('billing', paths.billing, async () => ({
                 Component: (await import('./routes/billing/billing')).BillingPage,
               })),

@@ -7,11 +7,14 @@ export const paths = {
   calendar: '/calendar',
   planDay: '/calendar/plan',
   sessions: '/sessions',
+  sessionLog: '/sessions/:bookingId',
   billing: '/billing',
   reports: '/reports',
   settings: '/settings',
   people: '/people',
 } as const;
+
+export const sessionLogPath = (bookingId: string) => `/sessions/${encodeURIComponent(bookingId)}`;
 
 /** Where a signed-in person lands when nothing else asked for a page. */
 export const defaultSignedInPath = paths.calendar;

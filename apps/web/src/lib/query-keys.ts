@@ -61,3 +61,24 @@ export const calendarFeedKeys = {
   all: ['calendar-feed'] as const,
   url: () => [...calendarFeedKeys.all, 'url'] as const,
 };
+
+export type UsageScope = 'mine' | 'to_confirm';
+
+export const usageKeys = {
+  all: ['usage'] as const,
+  sessions: (scope: UsageScope) => [...usageKeys.all, 'sessions', scope] as const,
+  booking: (bookingId: string) => [...usageKeys.all, 'booking', bookingId] as const,
+};
+
+export interface ReportQuery {
+  from: string;
+  to: string;
+  groupBy: 'week' | 'month';
+  instrumentId?: string;
+}
+
+export const reportKeys = {
+  all: ['reports'] as const,
+  utilisation: (query: ReportQuery) => [...reportKeys.all, 'utilisation', query] as const,
+  tuningCoverage: (query: Omit<ReportQuery, 'groupBy'>) => [...reportKeys.all, 'tuning-coverage', query] as const,
+};
