@@ -1,0 +1,95 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { pastSession } from '@femtoslot/api/src/test-support/past-session';
+import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
+import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
+import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
+import { User } from '@femtoslot/api/src/modules/users/user.entity';
+import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+
+let t: TestApi;
+let memberBrowser: Awaited<ReturnType<typeof launchBrowser>>;
+let staffBrowser: Awaited<ReturnType<typeof launchBrowser>>;
+beforeAll(async () => {
+  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
+  [memberBrowser, staffBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
+});
+afterAll(async () => {
+  await memberBrowser?.close();
+  await staffBrowser?.close();
+  await t?.close();
+});
+
+/** A Gaussian intensity autocorrelation for a 90 fs pulse: AC FWHM = √2 × pulse FWHM (Diels & Rudolph). */
+function traceFile(): string {
+  const ac = Math.SQRT2 * 90;
+  const lines = ['delay_fs,signal'];
+  for (let d = -4 * ac; d <= 4 * ac; d += ac / 30) lines.push(`${d.toFixed(2)},${(0.03 + Math.exp((-4 * Math.LN2 * d * d) / (ac * ac))).toFixed(6)}`);
+  const dir = path.join(process.env.ARTIFACTS_DIR ?? 'artifacts', 'fixtures');
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, 'ac-trace-90fs.csv');
+  writeFileSync(file, lines.join('\n'));
+  return file;
+}
+
+describe('session-log journey in Chromium', () => {
+  it('when a member logs a session with an autocorrelation trace, then the pulse is computed, staff confirm it, and the reports draw their charts', async () => {
+    const db = t.api.ctx.db;
+    const member = await db.getRepository(User).findOneByOrFail({ email: 'member@harrowpoint.test' });
+    const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
+    const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
+    const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
+    // Early this morning, three hours: a Sunday-free slot the seed does not use (it books 09:00–12:00 and 14:00–17:30).
+    const start = new Date(Date.now() - 9 * 3_600_000);
+    start.setUTCMinutes(0, 0, 0);
+    const busy = await db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1 AND status IN ('requested','approved','completed','scheduled') AND tstzrange(starts_at, ends_at) && tstzrange($2, $3)`, [aurora.id, start, new Date(start.getTime() + 3_600_000)]);
+    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: busy[0].n === 0 ? start : new Date(start.getTime() - 36 * 3_600_000), hours: 1, nm: 800 });
+
+    const page = await memberBrowser.context.newPage();
+    await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');
+    await page.goto(`${t.api.url}/sessions`);
+    const row = page.locator(`[data-testid="session-row"][data-booking-id="${session.id}"]`);
+    await row.waitFor();
+    expect(await row.getAttribute('data-log-status')).toBe('needs_log');
+    await row.getByTestId('log-session').click();
+    const form = page.getByTestId('usage-form');
+    await form.waitFor();
+    await form.locator('[name="segments.0.minValue"]').fill('795');
+    await form.locator('[name="segments.0.maxValue"]').fill('805');
+    await form.locator('[name="segments.0.averagePowerMw"]').fill('900');
+    await page.getByTestId('trace-drop').first().locator('input[type="file"]').setInputFiles(traceFile());
+    const result = page.getByTestId('trace-result').first();
+    await result.waitFor({ timeout: 15_000 });
+    expect(Math.abs(Number(await result.getAttribute('data-pulse-fs')) - 90) / 90).toBeLessThan(0.01);
+    await page.getByTestId('trace-plot').first().waitFor();
+    await screenshot(page, 'session-01-member-log-with-trace');
+    const saved = page.waitForResponse((r) => r.url().endsWith(`/api/bookings/${session.id}/usage`) && r.request().method() === 'POST');
+    await page.getByTestId('save-usage').click();
+    const res = await saved;
+    expect(res.status()).toBe(200);
+    expect((await res.json()).log.segments[0]).toMatchObject({ minNm: 795, maxNm: 805, pulseShape: expect.any(String) });
+
+    const staff = await staffBrowser.context.newPage();
+    await signInThroughForm(staff, t.api.url, 'staff@harrowpoint.test');
+    await staff.goto(`${t.api.url}/sessions`);
+    await staff.getByTestId('to-confirm-tab').click();
+    const staffRow = staff.locator(`[data-testid="session-row"][data-booking-id="${session.id}"]`);
+    await staffRow.waitFor();
+    await staffRow.getByTestId('log-session').click();
+    const confirmed = staff.waitForResponse((r) => /\/api\/usage\/[0-9a-f-]+\/confirm$/.test(r.url()));
+    await staff.getByTestId('confirm-usage').first().click();
+    expect((await confirmed).status()).toBe(200);
+    await screenshot(staff, 'session-02-staff-confirmed');
+
+    await staff.goto(`${t.api.url}/reports`);
+    await staff.getByTestId('utilisation-chart').waitFor();
+    await staff.getByTestId('tuning-chart').waitFor();
+    await staff.getByTestId('pulse-chart').waitFor();
+    await expect.poll(() => staff.getByTestId('utilisation-table').locator('tbody tr').count(), { timeout: 10_000 }).toBeGreaterThan(0);
+    expect(await staff.getByTestId('export-csv').count()).toBeGreaterThanOrEqual(3);
+    await staff.waitForTimeout(500);
+    await screenshot(staff, 'session-03-staff-reports');
+  });
+});
