@@ -41,11 +41,14 @@ describe('session-log journey in Chromium', () => {
     const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
     const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
     const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
-    // Early this morning, three hours: a Sunday-free slot the seed does not use (it books 09:00–12:00 and 14:00–17:30).
-    const start = new Date(Date.now() - 9 * 3_600_000);
+    // The most recent free hour that ended at least an hour ago (the seed books weekdays 09:00–12:00 and 14:00–17:30).
+    let start = new Date(Date.now() - 2 * 3_600_000);
     start.setUTCMinutes(0, 0, 0);
-    const busy = await db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1 AND status IN ('requested','approved','completed','scheduled') AND tstzrange(starts_at, ends_at) && tstzrange($2, $3)`, [aurora.id, start, new Date(start.getTime() + 3_600_000)]);
-    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: busy[0].n === 0 ? start : new Date(start.getTime() - 36 * 3_600_000), hours: 1, nm: 800 });
+    for (let i = 0; i < 96; i++, start = new Date(start.getTime() - 3_600_000)) {
+      const busy = await db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1 AND status IN ('requested','approved','completed','scheduled') AND tstzrange(starts_at, ends_at) && tstzrange($2, $3)`, [aurora.id, start, new Date(start.getTime() + 3_600_000)]);
+      if (busy[0].n === 0) break;
+    }
+    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: start, hours: 1, nm: 800 });
 
     const page = await memberBrowser.context.newPage();
     await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');

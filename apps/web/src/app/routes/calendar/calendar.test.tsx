@@ -1,3 +1,4 @@
+import { localDate, zonedToUtc } from '@femtoslot/shared';
 import { act } from 'react';
 import { describe, expect, test } from 'vitest';
 import { mockFetch, renderApp, setField, tick } from '../../../test/render-app';
@@ -11,9 +12,13 @@ const dfg = { ...signal, id: id(14), key: 'dfg', name: 'DFG mid-IR', outputKind:
 const soon = (hours: number) => new Date(Math.ceil(Date.now() / 3_600_000) * 3_600_000 + hours * 3_600_000).toISOString();
 const detail = { userId: id(92), userName: 'Ida', organisationId: org.id, organisationName: org.name, accountId: id(50), accountName: 'CC-1', purpose: 'Carrier lifetime',
   targetMinNm: 1300, targetMaxNm: 1300, declineReason: null, cancellationFeePercent: null, alternatives: [], rebookedAs: null, changeoverBeforeMinutes: 10 };
+// Anchored at 08:00 today in the facility's zone, so every test booking falls inside today's column of the visible week
+// whatever the hour the suite runs (a booking crossing midnight would be drawn as two pieces).
+const today = localDate(new Date(), 'America/New_York').split('-').map(Number) as [number, number, number];
+const todayAt = (hours: number) => new Date(zonedToUtc({ year: today[0], month: today[1], day: today[2], hour: 8, minute: 0 }, 'America/New_York').getTime() + hours * 3_600_000).toISOString();
 const booking = (n: number, conf: typeof signal, status: string, withDetail: boolean, from: number) => ({
   id: id(100 + n), instrumentId: source, configurationId: conf.id, configurationKey: conf.key, outputKind: conf.outputKind, status,
-  startsAt: soon(from), endsAt: soon(from + 2), own: withDetail, detail: withDetail ? detail : null,
+  startsAt: todayAt(from), endsAt: todayAt(from + 2), own: withDetail, detail: withDetail ? detail : null,
 });
 
 const checkAnswer = (eyewear: { id: string; label: string }[]) => ({
