@@ -16,7 +16,7 @@ interface VitestJson {
 
 async function main(): Promise<number> {
   const started = Date.now();
-  const [pgPort, smtpPort, mailWebPort] = await Promise.all([freePort(), freePort(), freePort()]);
+  const [pgPort, smtpPort, mailWebPort, stripePort] = await Promise.all([freePort(), freePort(), freePort(), freePort()]);
   let stack: Stack | null = null;
   let signalled = false;
   const onSignal = async () => { if (signalled) return; signalled = true; await stack?.stop(); process.exit(130); };
@@ -25,7 +25,7 @@ async function main(): Promise<number> {
   try {
     const chromium = await ensureChromium();
     stack = await bringUp({
-      name: 'test', pgPort, database: 'femtoslot_test', freshDatabase: true, smtpPort, mailWebPort,
+      name: 'test', pgPort, database: 'femtoslot_test', freshDatabase: true, smtpPort, mailWebPort, stripePort,
       // Durability is irrelevant for a throwaway test cluster; these make it several times faster.
       pgTuning: ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=300'],
     });
@@ -45,6 +45,7 @@ async function main(): Promise<number> {
           TEST_DATABASE_URL: stack!.databaseUrl,
           TEST_SMTP_PORT: String(smtpPort),
           TEST_MAILDEV_URL: stack!.mail.webUrl,
+          TEST_STRIPE_PORT: String(stack!.stripe?.port ?? stripePort),
           TEST_DATA_DIR: stack!.appDataDir,
           TEST_WEB_DIST: webDist,
           CHROMIUM_PATH: chromium,

@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { dataRoot, repoRoot, webDist } from './paths';
 import { ensureDatabase, ensurePostgresBinaries, startCluster, stopCluster, type Cluster } from './postgres';
 import { startMailCapture, type MailCapture } from './maildev';
+import { startStripeFake, type RunningStripeFake } from './stripe-fake';
 import { BootstrapError, isRoot, run, runOk, step } from './step';
 
 /** What both `npm start` and `npm test` bring up: PostgreSQL, a migrated database, the mail capture. */
@@ -11,6 +12,8 @@ export interface Stack {
   databaseUrl: string;
   mail: MailCapture;
   appDataDir: string;
+  /** The Stripe-compatible fake (billing), when the options asked for one. */
+  stripe: RunningStripeFake | null;
   stop(): Promise<void>;
 }
 
@@ -22,6 +25,9 @@ export interface StackOptions {
   smtpPort: number;
   mailWebPort: number;
   pgTuning?: string[];
+  /** Start the Stripe fake on this port, sending webhooks to the URL (none in tests: each test API starts its own). */
+  stripePort?: number;
+  stripeWebhookUrl?: string;
 }
 
 export async function bringUp(o: StackOptions): Promise<Stack> {
@@ -29,8 +35,10 @@ export async function bringUp(o: StackOptions): Promise<Stack> {
   const pgData = path.join(dataRoot, 'pg', o.name);
   const stopped = { pg: false, mail: false };
   let mail: MailCapture | null = null;
+  let stripe: RunningStripeFake | null = null;
   const cluster = await step(`PostgreSQL cluster "${o.name}" on 127.0.0.1:${o.pgPort}`, () => startCluster(binDir, pgData, o.pgPort, o.pgTuning));
   const stop = async () => {
+    await stripe?.stop();
     if (mail && !stopped.mail) { stopped.mail = true; await mail.stop(); }
     if (!stopped.pg) { stopped.pg = true; await stopCluster(binDir, pgData); }
   };
@@ -51,7 +59,11 @@ export async function bringUp(o: StackOptions): Promise<Stack> {
     const appDataDir = path.join(dataRoot, o.name);
     mail = await step(`mail capture (SMTP ${o.smtpPort}, web ${o.mailWebPort})`, () =>
       startMailCapture(o.smtpPort, o.mailWebPort, path.join(appDataDir, 'mail')));
-    return { cluster, databaseUrl, mail, appDataDir, stop };
+    if (o.stripePort !== undefined) {
+      stripe = await step(`Stripe fake on 127.0.0.1:${o.stripePort}`, () =>
+        startStripeFake(o.stripePort!, { webhookUrl: o.stripeWebhookUrl, stateDir: o.name === 'app' ? path.join(appDataDir, 'stripe') : undefined }));
+    }
+    return { cluster, databaseUrl, mail, appDataDir, stripe, stop };
   } catch (err) {
     await stop();
     throw err;

@@ -11,6 +11,7 @@ import type { AppContext } from './lib/context';
 import { createApp } from './server';
 import { startBookingJobs } from './modules/bookings/bookings.service';
 import { startUsageJobs } from './modules/usage/usage.service';
+import { startBillingJobs } from './modules/billing/close-job';
 
 export interface RunningApi {
   url: string;
@@ -32,6 +33,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
   if (opts.mailWorker ?? true) {
     await startBookingJobs(ctx);
     await startUsageJobs(ctx);
+    await startBillingJobs(ctx);
   }
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {

@@ -25,6 +25,10 @@ import { eyewearRoutes } from './modules/safety/eyewear.routes';
 import { attachmentsRoutes } from './modules/attachments/attachments.routes';
 import { reportsRoutes } from './modules/reports/reports.routes';
 import { usageRoutes } from './modules/usage/usage.routes';
+import { billingRoutes } from './modules/billing/billing.routes';
+import { rateCardsRoutes } from './modules/rate-cards/rate-cards.routes';
+import { invoicesRoutes } from './modules/invoices/invoices.routes';
+import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -44,6 +48,9 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...usageRoutes(ctx),
     ...attachmentsRoutes(ctx),
     ...reportsRoutes(ctx),
+    ...rateCardsRoutes(ctx),
+    ...billingRoutes(ctx),
+    ...invoicesRoutes(ctx),
   ];
 }
 
@@ -94,6 +101,8 @@ export function createApp(ctx: AppContext) {
   api.use(authenticate(ctx));
   mount(api, routeTable(ctx));
   api.use(notFoundHandler);
+  // Stripe signs the raw bytes: this route gets them before the API router's JSON parser (public; origin-exempt).
+  app.post('/api/webhooks/stripe', express.raw({ type: '*/*', limit: '1mb' }), stripeWebhookHandler(ctx));
   app.use('/api', api);
 
   const dist = ctx.env.WEB_DIST;

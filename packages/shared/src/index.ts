@@ -5,3 +5,4 @@ export * from './bookings/booking.schemas';
 export * from './bookings/booking-policy';
 export * from './usage/usage.schemas';
 export * from './engine';
+export * from './billing/billing.schemas';

@@ -23,6 +23,11 @@ const envSchema = z.object({
   OUTBOX_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(5),
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must be a Stripe secret key (sk_test_… or sk_live_…)').default('sk_test_femtoslot_local'),
+  STRIPE_HOST: z.string().optional(),
+  STRIPE_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_PROTOCOL: z.enum(['http', 'https']).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(1).default('whsec_femtoslot_local'),
 });
 
 export type Env = Omit<z.infer<typeof envSchema>, 'JWT_SECRET' | 'APP_URL'> & {

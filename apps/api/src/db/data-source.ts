@@ -36,3 +36,12 @@ export function createDataSource(url: string, poolSize = 10): DataSource {
     extra: { max: poolSize, connectionTimeoutMillis: 5000 },
   });
 }
+
+// Billing (issue 6): rate cards, periods, invoices, journals, Stripe events.
+import { Billing1764892800000 } from './migrations/1764892800000-billing';
+import { RateCard } from '../modules/rate-cards/rate-card.entity';
+import { AccountBillingDetails, BillingJob, BillingPeriod, BillingPeriodAccount, JournalLine } from '../modules/billing/billing.entities';
+import { Invoice } from '../modules/invoices/invoice.entity';
+import { StripeEvent } from '../modules/webhooks/stripe-event.entity';
+(entities as unknown as (new () => object)[]).push(RateCard, BillingPeriod, BillingPeriodAccount, BillingJob, JournalLine, AccountBillingDetails, Invoice, StripeEvent);
+(migrations as unknown as (new () => object)[]).push(Billing1764892800000);

@@ -64,3 +64,16 @@ export const demoEyewear = [
   { label: 'Goggle B — OPA near-IR', description: 'Demo item: broadband near-IR', bands: [{ minNm: 740, maxNm: 1100, od: 7 }, { minNm: 1100, maxNm: 2700, od: 6 }] },
   { label: 'Goggle C — mid-IR wide', description: 'Demo item: near- and mid-IR', bands: [{ minNm: 750, maxNm: 2700, od: 7 }, { minNm: 2600, maxNm: 11500, od: 6 }] },
 ];
+
+/** Invented demo rate card (PRODUCT.md §5): internal 60, external academic 110, industry 260 USD/h; DFG class +25 %. */
+export const demoRateCard = {
+  name: 'Demo rate card',
+  billingIncrementMinutes: 15,
+  changeoverSharePercent: 0,
+  minimumChargeMinutes: 60,
+  rates: {
+    internal: { standard: 6_000, dfg: 7_500 },
+    external_academic: { standard: 11_000, dfg: 13_750 },
+    industry: { standard: 26_000, dfg: 32_500 },
+  },
+};

@@ -16,6 +16,8 @@ import { User } from '../../modules/users/user.entity';
 import { UsageLog } from '../../modules/usage/usage-log.entity';
 import { UsageSegment } from '../../modules/usage/usage-segment.entity';
 import { demoAccounts, demoEyewear, demoFacility, demoInstruments, demoOrganisations, demoPassword, demoUsers } from './demo-data';
+import { demoRateCard } from './demo-data';
+import { seedBilling } from '../../modules/billing/seed-billing';
 
 const addDays = (isoDate: string, days: number) => {
   const d = new Date(`${isoDate}T12:00:00Z`);
@@ -38,6 +40,7 @@ export async function seedDemo(db: DataSource, now = new Date()): Promise<'seede
     await seedInstruments(m);
     await seedTimeline(m, now);
     await seedUsageLogs(m);
+    await seedBilling(m, now, demoRateCard);
     return 'seeded';
   });
 }

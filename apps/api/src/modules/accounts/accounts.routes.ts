@@ -3,6 +3,8 @@ import type { AppContext } from '../../lib/context';
 import { currentUser, type RouteDef } from '../../lib/auth/routes';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { Account } from './account.entity';
+import { param } from '../../lib/auth/routes';
+import { accountSetup, poUpload } from '../billing/account-setup';
 
 export function accountsRoutes(ctx: AppContext): RouteDef[] {
   return [
@@ -22,6 +24,22 @@ export function accountsRoutes(ctx: AppContext): RouteDef[] {
           }),
         });
       },
+    },
+    // Billing (issue 6): account requests with an optional PO file (multipart), approved by a PI of the organisation.
+    ...accountRequestRoutes(ctx),
+  ];
+}
+
+function accountRequestRoutes(ctx: AppContext): RouteDef[] {
+  const setup = accountSetup(ctx);
+  return [
+    {
+      method: 'post', path: '/accounts', access: ['pi', 'collaborator', 'staff', 'finance'], scope: 'organisation', before: [poUpload.single('poFile')],
+      handler: async (req, res) => { res.status(201).json({ account: await setup.create(currentUser(req), req.body, req.file, String(req.id)) }); },
+    },
+    {
+      method: 'post', path: '/accounts/:id/approve', access: ['pi', 'staff'], scope: 'organisation',
+      handler: async (req, res) => { res.json({ account: await setup.approve(currentUser(req), param(req, 'id'), String(req.id)) }); },
     },
   ];
 }

@@ -1,0 +1,115 @@
+import type { EntityManager } from 'typeorm';
+import { In } from 'typeorm';
+import { formatMoney } from '@femtoslot/shared/billing/money';
+import type { SessionUser } from '../../lib/auth/session';
+import type { AppContext } from '../../lib/context';
+import { notFound } from '../../lib/errors/app-error';
+import { recordAudit } from '../audit/audit.service';
+import { FacilitySettings } from '../facility/facility-settings.entity';
+import { BillingJob, BillingPeriod, BillingPeriodAccount } from './billing.entities';
+import { computeStatement, monthBounds, type AccountStatement } from './statement';
+
+export const BILLING_CLOSE_QUEUE = 'billing-close';
+
+export const toPeriodDto = (p: BillingPeriod) => ({
+  id: p.id, month: p.month, startsAt: p.startsAt.toISOString(), endsAt: p.endsAt.toISOString(), timeZone: p.timeZone, status: p.status,
+  closedAt: p.closedAt?.toISOString() ?? null,
+});
+
+export const toJobDto = (j: BillingJob) => ({
+  id: j.id, periodId: j.periodId, status: j.status, done: j.done, total: j.total, errors: j.errors,
+  startedAt: j.startedAt?.toISOString() ?? null, finishedAt: j.finishedAt?.toISOString() ?? null,
+});
+
+function previewDto(accounts: AccountStatement[], currency: string) {
+  const totalMinor = accounts.reduce((s, a) => s + a.totalMinor, 0);
+  return {
+    currency,
+    accounts: accounts.map((a) => ({ ...a, totalFormatted: formatMoney(a.totalMinor, a.currency) })),
+    totalMinor,
+    totalFormatted: formatMoney(totalMinor, currency),
+  };
+}
+
+export function billingService(ctx: AppContext) {
+  const db = ctx.db;
+
+  /** The statement of a period: live while open, the frozen one once a close has started. */
+  async function statementOf(m: EntityManager, period: BillingPeriod, facility: FacilitySettings): Promise<AccountStatement[]> {
+    if (period.status === 'open') return computeStatement(m, facility, period);
+    const rows = await m.getRepository(BillingPeriodAccount).findBy({ periodId: period.id });
+    const live = await m.query(`SELECT a.id, a.name, a.kind, a.organisation_id, a.cost_centre_code, o.name AS org_name FROM accounts a JOIN organisations o ON o.id = a.organisation_id WHERE a.id = ANY($1)`, [rows.map((r) => r.accountId)]);
+    const byId = new Map<string, { name: string; kind: 'cost_centre' | 'external'; organisation_id: string; cost_centre_code: string | null; org_name: string }>(live.map((r: { id: string }) => [r.id, r]));
+    return rows.map((r) => {
+      const a = byId.get(r.accountId)!;
+      return { accountId: r.accountId, accountName: a.name, accountKind: a.kind, organisationId: a.organisation_id, organisationName: a.org_name, costCentreCode: a.cost_centre_code, currency: r.currency.trim(), lines: r.lines, totalMinor: r.totalMinor };
+    }).sort((x, y) => x.accountName.localeCompare(y.accountName));
+  }
+
+  /** Creates the month's period (or returns the one there is) with its preview. */
+  async function openPeriod(user: SessionUser, month: string) {
+    const facility = await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+    const bounds = monthBounds(month, facility.timeZone);
+    await db.query(`INSERT INTO billing_periods (month, starts_at, ends_at, time_zone, created_by) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (month) DO NOTHING`,
+      [month, bounds.startsAt, bounds.endsAt, facility.timeZone, user.id]);
+    const period = await db.getRepository(BillingPeriod).findOneByOrFail({ month });
+    return { period: toPeriodDto(period), preview: previewDto(await statementOf(db.manager, period, facility), facility.currency.trim()), job: await latestJob(period.id) };
+  }
+
+  async function getPeriod(id: string) {
+    const period = await db.getRepository(BillingPeriod).findOneBy({ id });
+    if (!period) throw notFound('Billing period');
+    const facility = await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+    return { period: toPeriodDto(period), preview: previewDto(await statementOf(db.manager, period, facility), facility.currency.trim()), job: await latestJob(period.id) };
+  }
+
+  async function listPeriods() {
+    const rows = await db.getRepository(BillingPeriod).find({ order: { month: 'DESC' } });
+    return rows.map(toPeriodDto);
+  }
+
+  async function latestJob(periodId: string) {
+    const job = await db.getRepository(BillingJob).findOne({ where: { periodId }, order: { createdAt: 'DESC' } });
+    return job ? toJobDto(job) : null;
+  }
+
+  /**
+   * Freezes the statement and queues the close job, in one transaction. A closed period is returned as it is; a
+   * close already queued or running is returned instead of a second one; a failed one is started again, and
+   * skips every account it already finished.
+   */
+  async function requestClose(user: SessionUser, periodId: string, requestId?: string) {
+    const out = await db.transaction(async (m) => {
+      const period = await m.getRepository(BillingPeriod).findOne({ where: { id: periodId }, lock: { mode: 'pessimistic_write' } });
+      if (!period) throw notFound('Billing period');
+      const jobs = m.getRepository(BillingJob);
+      if (period.status === 'closed') return { period, job: await jobs.findOne({ where: { periodId }, order: { createdAt: 'DESC' } }), started: false };
+      const active = await jobs.findOne({ where: { periodId, status: In(['queued', 'running']) } });
+      if (active) return { period, job: active, started: false };
+      if (period.status === 'open') {
+        const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+        for (const a of await computeStatement(m, facility, period)) {
+          await m.getRepository(BillingPeriodAccount).insert({ periodId, accountId: a.accountId, currency: a.currency, lines: a.lines, totalMinor: a.totalMinor, status: 'pending' });
+        }
+        period.status = 'closing';
+        period.closeRequestedBy = user.id;
+        await m.getRepository(BillingPeriod).save(period);
+        await recordAudit(m, { actorUserId: user.id, action: 'billing_period.close_requested', entityType: 'billing_period', entityId: period.id, requestId });
+      }
+      const total = await m.getRepository(BillingPeriodAccount).countBy({ periodId });
+      const done = await m.getRepository(BillingPeriodAccount).countBy({ periodId, status: 'done' });
+      const job = await jobs.save(jobs.create({ periodId, status: 'queued', total, done, errors: [], requestedBy: user.id }));
+      await ctx.outbox.sendJob(BILLING_CLOSE_QUEUE, { jobId: job.id }, {}, m);
+      return { period, job, started: true };
+    });
+    return { period: toPeriodDto(out.period), job: out.job ? toJobDto(out.job) : null, started: out.started };
+  }
+
+  async function job(id: string) {
+    const row = await db.getRepository(BillingJob).findOneBy({ id });
+    if (!row) throw notFound('Billing job');
+    return toJobDto(row);
+  }
+
+  return { openPeriod, getPeriod, listPeriods, requestClose, job };
+}

@@ -1,0 +1,105 @@
+import { localDate } from '@femtoslot/shared';
+import { formatMoney } from '@femtoslot/shared/billing/money';
+import { In, type EntityManager } from 'typeorm';
+import type { AppContext } from '../../lib/context';
+import { Account } from '../accounts/account.entity';
+import { FacilitySettings } from '../facility/facility-settings.entity';
+import { Invoice, type InvoiceStatus } from '../invoices/invoice.entity';
+import { invoiceNoticeMail } from '../invoices/invoice-mail';
+import { UsageLog } from '../usage/usage-log.entity';
+import { BillingJob, BillingPeriod, BillingPeriodAccount, JournalLine, type BillingJobError } from './billing.entities';
+import { BILLING_CLOSE_QUEUE } from './billing.service';
+import { pushToStripe } from './stripe-push';
+
+async function nextNumber(m: EntityManager, month: string, prefix: 'INV' | 'JNL'): Promise<string> {
+  const [{ n }] = await m.query(`SELECT nextval('invoice_number_seq')::int AS n`);
+  return `FS-${prefix}-${month.replace('-', '')}-${String(n).padStart(5, '0')}`;
+}
+
+/**
+ * Records one account as done, in one transaction: the invoice row, journal lines (internal), the logs marked
+ * billed, the progress row. The row lock makes a second runner wait and then see that the account is done.
+ */
+async function recordDone(ctx: AppContext, period: BillingPeriod, accountId: string, billedBy: string, external: { status: InvoiceStatus; stripeInvoiceId: string; number: string | null; url: string | null; dueDate: string | null; amountPaid: number } | null): Promise<void> {
+  await ctx.db.transaction(async (m) => {
+    const row = await m.getRepository(BillingPeriodAccount).findOne({ where: { periodId: period.id, accountId }, lock: { mode: 'pessimistic_write' } });
+    if (!row || row.status === 'done') return;
+    const account = await m.getRepository(Account).findOneByOrFail({ id: accountId });
+    const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+    const internal = account.kind === 'cost_centre';
+    const invoice = await m.getRepository(Invoice).save(m.getRepository(Invoice).create({
+      periodId: period.id, accountId, organisationId: account.organisationId, number: await nextNumber(m, period.month, internal ? 'JNL' : 'INV'),
+      kind: internal ? 'internal' : 'external', status: internal ? 'journal' : external?.status ?? 'paid', currency: row.currency.trim(), totalMinor: row.totalMinor,
+      amountPaidMinor: external?.amountPaid ?? 0, paidAt: external?.status === 'paid' ? new Date() : null, lines: row.lines,
+      stripeInvoiceId: external?.stripeInvoiceId ?? null, stripeInvoiceNumber: external?.number ?? null, hostedInvoiceUrl: external?.url ?? null, dueDate: external?.dueDate ?? null,
+    }));
+    if (internal) {
+      for (const line of row.lines) {
+        await m.getRepository(JournalLine).insert({
+          periodId: period.id, accountId, invoiceId: invoice.id, costCentreCode: account.costCentreCode!, lineKey: line.key,
+          amountMinor: line.amountMinor, currency: row.currency.trim(), description: `${line.label}: ${line.explanation}`,
+        });
+      }
+    }
+    const logIds = [...new Set(row.lines.filter((l) => l.kind === 'usage' && l.usageLogId).map((l) => l.usageLogId!))];
+    if (logIds.length) await m.getRepository(UsageLog).update({ id: In(logIds) }, { status: 'billed', billedBy, billedAt: new Date() });
+    await m.getRepository(BillingPeriodAccount).update({ periodId: period.id, accountId }, { status: 'done', invoiceId: invoice.id, lastError: null });
+    if (!internal && external && account.billingContactEmail && row.totalMinor > 0) {
+      await ctx.outbox.enqueue(m, account.billingContactEmail, invoiceNoticeMail({
+        accountName: account.name, facility: facility.name, number: external.number ?? invoice.number, month: period.month,
+        total: formatMoney(row.totalMinor, row.currency.trim()), dueDate: external.dueDate, url: external.url,
+      }));
+    }
+  });
+}
+
+async function billAccount(ctx: AppContext, period: BillingPeriod, row: BillingPeriodAccount, billedBy: string): Promise<void> {
+  const account = await ctx.db.getRepository(Account).findOneByOrFail({ id: row.accountId });
+  if (account.kind === 'cost_centre' || row.totalMinor === 0) {
+    // Internal groups are charged by journal; a zero statement has nothing to collect, so it needs no Stripe invoice.
+    await recordDone(ctx, period, row.accountId, billedBy, null);
+    return;
+  }
+  const { stripeInvoice: inv } = await pushToStripe(ctx, period, row, row.lines);
+  const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+  await recordDone(ctx, period, row.accountId, billedBy, {
+    status: inv.status === 'paid' ? 'paid' : inv.status === 'void' ? 'void' : 'open', stripeInvoiceId: inv.id!, number: inv.number ?? null,
+    url: inv.hosted_invoice_url ?? null, dueDate: inv.due_date ? localDate(new Date(inv.due_date * 1000), facility.timeZone) : null, amountPaid: inv.amount_paid ?? 0,
+  });
+}
+
+/** One run of the close: every pending account in turn; an account that fails is reported and left for the next run. */
+export async function runCloseJob(ctx: AppContext, jobId: string): Promise<void> {
+  const jobs = ctx.db.getRepository(BillingJob);
+  const job = await jobs.findOneBy({ id: jobId });
+  if (!job || job.status === 'completed') return;
+  await jobs.update({ id: jobId }, { status: 'running', startedAt: new Date(), errors: [] });
+  const period = await ctx.db.getRepository(BillingPeriod).findOneByOrFail({ id: job.periodId });
+  const billedBy = period.closeRequestedBy ?? job.requestedBy!;
+  const rows = await ctx.db.getRepository(BillingPeriodAccount).find({ where: { periodId: period.id, status: 'pending' }, order: { accountId: 'ASC' } });
+  const errors: BillingJobError[] = [];
+  for (const row of rows) {
+    try {
+      await billAccount(ctx, period, row, billedBy);
+    } catch (err) {
+      // Report and go on: the account stays pending, and the next run resumes it with the same idempotency keys.
+      const message = String((err as Error).message ?? err).slice(0, 500);
+      errors.push({ accountId: row.accountId, message, at: new Date().toISOString() });
+      await ctx.db.getRepository(BillingPeriodAccount).update({ periodId: period.id, accountId: row.accountId }, { lastError: message });
+      ctx.logger.warn({ periodId: period.id, accountId: row.accountId, err: message }, 'billing close: account failed; it will be resumed');
+    }
+    await jobs.update({ id: jobId }, { done: await ctx.db.getRepository(BillingPeriodAccount).countBy({ periodId: period.id, status: 'done' }), errors });
+  }
+  const pending = await ctx.db.getRepository(BillingPeriodAccount).countBy({ periodId: period.id, status: 'pending' });
+  if (pending === 0) await ctx.db.getRepository(BillingPeriod).update({ id: period.id }, { status: 'closed', closedAt: new Date() });
+  await jobs.update({ id: jobId }, { status: pending === 0 ? 'completed' : 'failed', finishedAt: new Date(), errors });
+}
+
+/** Works the close queue; at start-up, a job left queued or running by a crash is queued again. */
+export async function startBillingJobs(ctx: AppContext): Promise<void> {
+  await ctx.outbox.work<{ jobId: string }>(BILLING_CLOSE_QUEUE, (data) => runCloseJob(ctx, data.jobId));
+  const stranded: { id: string }[] = await ctx.db.query(
+    `SELECT b.id FROM billing_jobs b WHERE b.status IN ('queued','running') AND NOT EXISTS (
+       SELECT 1 FROM pgboss.job j WHERE j.name = $1 AND j.data->>'jobId' = b.id::text AND j.state IN ('created','retry','active'))`, [BILLING_CLOSE_QUEUE]);
+  for (const s of stranded) await ctx.outbox.sendJob(BILLING_CLOSE_QUEUE, { jobId: s.id });
+}

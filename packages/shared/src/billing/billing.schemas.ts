@@ -1,0 +1,64 @@
+import { z } from 'zod';
+import { organisationKindSchema } from '../auth/auth.schemas';
+
+const isoDate = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use a date as YYYY-MM-DD');
+const minorAmount = z.number().int().min(0).max(100_000_000);
+const classRates = z.strictObject({ standard: minorAmount, dfg: minorAmount });
+
+export const rateTableSchema = z.strictObject({ internal: classRates, external_academic: classRates, industry: classRates });
+export type RateTable = z.infer<typeof rateTableSchema>;
+
+export const rateCardInputSchema = z.strictObject({
+  name: z.string().trim().min(1).max(120),
+  effectiveFrom: isoDate,
+  effectiveTo: isoDate.nullish(),
+  currency: z.string().regex(/^[A-Z]{3}$/, 'Use an ISO 4217 code such as USD'),
+  billingIncrementMinutes: z.number().int().min(1).max(240).default(15),
+  changeoverSharePercent: z.number().int().min(0).max(100).default(0),
+  minimumChargeMinutes: z.number().int().min(0).max(720).default(0),
+  rates: rateTableSchema,
+}).refine((c) => !c.effectiveTo || c.effectiveTo > c.effectiveFrom, { message: 'effectiveTo must be after effectiveFrom', path: ['effectiveTo'] });
+export type RateCardInput = z.input<typeof rateCardInputSchema>;
+
+export const ratePreviewInputSchema = z.strictObject({ bookingId: z.uuid() });
+
+export const billingPeriodInputSchema = z.strictObject({
+  month: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month as YYYY-MM'),
+});
+export type BillingPeriodInput = z.infer<typeof billingPeriodInputSchema>;
+
+/** Cost-centre codes: "CC-", four digits, "-", three digits (facility finance's format). */
+export const costCentreCodeSchema = z.string().trim().regex(/^CC-\d{4}-\d{3}$/, 'Use a cost centre code like CC-1234-567');
+
+const accountCommon = {
+  name: z.string().trim().min(1).max(120),
+  organisationId: z.uuid().optional(),
+};
+export const createAccountInputSchema = z.discriminatedUnion('kind', [
+  z.strictObject({ ...accountCommon, kind: z.literal('cost_centre'), costCentreCode: costCentreCodeSchema }),
+  z.strictObject({
+    ...accountCommon,
+    kind: z.literal('external'),
+    billingContactEmail: z.string().trim().toLowerCase().pipe(z.email({ message: 'Enter a valid billing contact e-mail' })),
+    taxId: z.string().trim().min(2).max(40).optional(),
+    poNumber: z.string().trim().min(1).max(60),
+    poExpiresOn: isoDate.optional(),
+  }),
+]);
+export type CreateAccountInput = z.infer<typeof createAccountInputSchema>;
+
+export const priceLineKinds = ['usage', 'changeover', 'cancellation_fee', 'displacement'] as const;
+export const priceLineSchema = z.object({
+  key: z.string(),
+  kind: z.enum(priceLineKinds),
+  bookingId: z.uuid(),
+  usageLogId: z.uuid().nullable(),
+  label: z.string(),
+  explanation: z.string(),
+  minutes: z.number().int(),
+  rateMinorPerHour: z.number().int(),
+  amountMinor: z.number().int(),
+  category: organisationKindSchema,
+  rateClass: z.enum(['standard', 'dfg']),
+});
+export type PriceLine = z.infer<typeof priceLineSchema>;
