@@ -8,5 +8,6 @@ export default defineConfig({
     include: ['src/**/*.test.{ts,tsx}'],
     environment: 'jsdom',
     sequence: { groupOrder: 3 },
+    testTimeout: 20_000,
   },
 });

@@ -82,3 +82,20 @@ export const reportKeys = {
   utilisation: (query: ReportQuery) => [...reportKeys.all, 'utilisation', query] as const,
   tuningCoverage: (query: Omit<ReportQuery, 'groupBy'>) => [...reportKeys.all, 'tuning-coverage', query] as const,
 };
+
+export const billingKeys = {
+  all: ['billing'] as const,
+  periods: () => [...billingKeys.all, 'periods'] as const,
+  period: (id: string) => [...billingKeys.all, 'period', id] as const,
+  job: (id: string) => [...billingKeys.all, 'job', id] as const,
+};
+
+export const invoiceKeys = {
+  all: ['invoices'] as const,
+  list: () => [...invoiceKeys.all, 'list'] as const,
+};
+
+export const rateCardKeys = {
+  all: ['rate-cards'] as const,
+  list: () => [...rateCardKeys.all, 'list'] as const,
+};

@@ -2,13 +2,19 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiClient } from '../../../lib/api-client';
 import { accountKeys } from '../../../lib/query-keys';
 
+export type AccountStatus = 'pending' | 'approved' | 'inactive';
+
+/** GET /api/accounts: the caller's organisation's accounts, each saying whether a booking may be charged to it today. */
 export interface Account {
   id: string;
   name: string;
   kind: 'cost_centre' | 'external';
-  status: string;
+  status: AccountStatus | (string & {});
   usable: boolean;
   reason: string | null;
+  poNumber?: string | null;
+  poExpiresOn?: string | null;
+  costCentreCode?: string | null;
 }
 
 export const getAccounts = (signal?: AbortSignal) =>

@@ -1,0 +1,56 @@
+import type { PriceLine } from '@femtoslot/shared';
+
+/** Shapes of apps/api/src/modules/billing (billing.service.ts toPeriodDto / toJobDto / previewDto). */
+export type PeriodStatus = 'open' | 'closing' | 'closed';
+
+export interface BillingPeriod {
+  id: string;
+  /** YYYY-MM, a calendar month in the facility time zone */
+  month: string;
+  startsAt: string;
+  endsAt: string;
+  timeZone: string;
+  status: PeriodStatus;
+  closedAt: string | null;
+}
+
+export type JobStatus = 'queued' | 'running' | 'completed' | 'failed';
+
+export interface BillingJob {
+  id: string;
+  periodId: string;
+  status: JobStatus;
+  done: number;
+  total: number;
+  errors: { accountId: string; message: string; at: string }[];
+  startedAt: string | null;
+  finishedAt: string | null;
+}
+
+export interface AccountStatement {
+  accountId: string;
+  accountName: string;
+  accountKind: 'cost_centre' | 'external';
+  organisationId: string;
+  organisationName: string;
+  costCentreCode: string | null;
+  /** not sent by the API today; shown when it is */
+  poNumber?: string | null;
+  currency: string;
+  lines: PriceLine[];
+  totalMinor: number;
+}
+
+export interface PeriodPreview {
+  currency: string;
+  accounts: AccountStatement[];
+  totalMinor: number;
+}
+
+export interface PeriodDetail {
+  period: BillingPeriod;
+  preview: PeriodPreview;
+  job: BillingJob | null;
+}
+
+export const isJobActive = (job: BillingJob | null | undefined) => job?.status === 'queued' || job?.status === 'running';
