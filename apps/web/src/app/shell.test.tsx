@@ -58,6 +58,10 @@ test('when a member opens people, then it is not available', async () => {
 test('when signed out, then billing sends them to sign-in, which shows the API message', async () => {
   mockApi(null);
   const { el, router } = await render('/billing');
+  // The guard redirects once the lazy route and the 401 from /api/auth/me have both arrived; wait for it rather than guess a delay.
+  for (let i = 0; i < 150 && (router.state.location.pathname !== '/sign-in' || !el.querySelector('input[name="email"]')); i++) {
+    await act(async () => { await new Promise((r) => setTimeout(r, 20)); });
+  }
   expect(router.state.location.pathname).toBe('/sign-in');
   const email = el.querySelector('input[name="email"]') as HTMLInputElement;
   const pw = el.querySelector('input[name="password"]') as HTMLInputElement;
