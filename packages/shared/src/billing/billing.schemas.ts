@@ -62,3 +62,18 @@ export const priceLineSchema = z.object({
   rateClass: z.enum(['standard', 'dfg']),
 });
 export type PriceLine = z.infer<typeof priceLineSchema>;
+
+/** One account's lines for a billing period, as the preview and the close job see them. */
+export interface AccountStatement {
+  accountId: string;
+  accountName: string;
+  accountKind: 'cost_centre' | 'external';
+  organisationId: string;
+  organisationName: string;
+  costCentreCode: string | null;
+  /** Shown on the preview when the API sends it. */
+  poNumber?: string | null;
+  currency: string;
+  lines: PriceLine[];
+  totalMinor: number;
+}

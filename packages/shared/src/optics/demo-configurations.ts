@@ -1,16 +1,7 @@
-import type { OutputKind, RateClass } from '../facility/facility.schemas';
+import type { ConfigurationDto } from '../facility/facility.schemas';
 
-export interface DemoConfiguration {
-  key: string;
-  name: string;
-  outputKind: OutputKind;
-  minNm: number;
-  maxNm: number;
-  defaultNm: number;
-  rateClass: RateClass;
-  /** Demo value only: in a real facility the laser-safety officer sets the required OD. */
-  requiredOd: number;
-}
+/** A configuration before it is stored: no ids yet; the demo's required OD is invented (the laser-safety officer sets it). */
+export type DemoConfiguration = Omit<ConfigurationDto, 'id' | 'instrumentId' | 'retuneMinutesPerNm' | 'active'>;
 
 /**
  * Demo configurations of the invented "Aurora line" source (PRODUCT.md §5 ranges).

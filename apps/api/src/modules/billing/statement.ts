@@ -1,4 +1,4 @@
-import { changeoverFor, localDate, wallTimeAt, zonedToUtc, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
+import { changeoverFor, localDate, wallTimeAt, zonedToUtc, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
 import { cancellationFeeLine, displacementLine, usageLines, type LineContext } from '@femtoslot/shared/billing/pricing';
 import { In, LessThanOrEqual, Not, type EntityManager } from 'typeorm';
 import { Account } from '../accounts/account.entity';
@@ -61,17 +61,7 @@ export async function linesForBooking(m: EntityManager, facility: FacilitySettin
   return { lines: usageLines(rules, base(key, label), span, changeover), basis: log ? (log.status === 'submitted' ? 'unconfirmed_log' : 'confirmed_log') : 'booked_times' };
 }
 
-export interface AccountStatement {
-  accountId: string;
-  accountName: string;
-  accountKind: 'cost_centre' | 'external';
-  organisationId: string;
-  organisationName: string;
-  costCentreCode: string | null;
-  currency: string;
-  lines: PriceLine[];
-  totalMinor: number;
-}
+export type { AccountStatement };
 
 const cardCache = (m: EntityManager) => {
   const cards = new Map<string, Promise<RateCard>>();

@@ -1,4 +1,4 @@
-import type { PriceLine } from '@femtoslot/shared';
+import type { AccountStatement, PriceLine } from '@femtoslot/shared';
 
 /** Shapes of apps/api/src/modules/billing (billing.service.ts toPeriodDto / toJobDto / previewDto). */
 export type PeriodStatus = 'open' | 'closing' | 'closed';
@@ -27,19 +27,7 @@ export interface BillingJob {
   finishedAt: string | null;
 }
 
-export interface AccountStatement {
-  accountId: string;
-  accountName: string;
-  accountKind: 'cost_centre' | 'external';
-  organisationId: string;
-  organisationName: string;
-  costCentreCode: string | null;
-  /** not sent by the API today; shown when it is */
-  poNumber?: string | null;
-  currency: string;
-  lines: PriceLine[];
-  totalMinor: number;
-}
+export type { AccountStatement };
 
 export interface PeriodPreview {
   currency: string;
