@@ -16,6 +16,16 @@ function fromDatabase(err: QueryFailedError): AppError | null {
   return null;
 }
 
+const UNREACHABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08003', '08006']);
+
+/** The database is down or restarting: clients and load balancers should retry, not report a bug. */
+function isDatabaseUnavailable(err: unknown): boolean {
+  const e = err as { code?: string; driverError?: { code?: string }; message?: string } | null;
+  const code = e?.driverError?.code ?? e?.code;
+  if (code && UNREACHABLE.has(code)) return true;
+  return /Connection terminated|timeout exceeded when trying to connect|connect ECONNREFUSED/i.test(String(e?.message ?? ''));
+}
+
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   let appError: AppError | null = null;
   if (err instanceof AppError) appError = err;
@@ -25,6 +35,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (err instanceof QueryFailedError) appError = fromDatabase(err);
   else if (err?.type === 'entity.parse.failed') appError = new AppError('invalid_json', 'The request body is not valid JSON', 400);
   else if (err?.type === 'entity.too.large') appError = new AppError('payload_too_large', 'The request body is too large', 413);
+  else if (isDatabaseUnavailable(err)) appError = new AppError('database_unavailable', 'The database is unavailable for a moment; try again shortly', 503);
   else if (err?.name === 'MulterError') appError = new AppError(err.code === 'LIMIT_FILE_SIZE' ? 'payload_too_large' : 'bad_upload', err.code === 'LIMIT_FILE_SIZE' ? 'The file is too large' : `The upload was refused: ${err.message}`, err.code === 'LIMIT_FILE_SIZE' ? 413 : 400);
 
   if (!appError) {

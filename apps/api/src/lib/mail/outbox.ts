@@ -33,7 +33,8 @@ export class Outbox {
     await this.boss.createQueue(QUEUE).catch(() => undefined);
     this.started = true;
     if (!work) return;
-    await this.boss.work<{ id: string }>(QUEUE, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1 }, async (jobs) => {
+    // Several messages per poll: after an outage the backlog drains in seconds; deliver() skips what was already sent.
+    await this.boss.work<{ id: string }>(QUEUE, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1, batchSize: 10 }, async (jobs) => {
       for (const job of jobs) await this.deliver(job.data.id);
     });
     await this.requeueStranded();

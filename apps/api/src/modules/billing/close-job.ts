@@ -68,8 +68,38 @@ async function billAccount(ctx: AppContext, period: BillingPeriod, row: BillingP
   });
 }
 
-/** One run of the close: every pending account in turn; an account that fails is reported and left for the next run. */
+const runnerLockKey = (jobId: string) => `billing-close:${jobId}`;
+
+/**
+ * Runs the close while holding a session advisory lock on a connection of its own. pg-boss keeps a job "active" for
+ * its expiry (15 min) after the worker's process died; the lock, which PostgreSQL drops with the dead process's
+ * connection, is what tells a restarted process that nobody is working the job any more.
+ */
 export async function runCloseJob(ctx: AppContext, jobId: string): Promise<void> {
+  const runner = ctx.db.createQueryRunner();
+  await runner.connect();
+  try {
+    const [{ ok }] = await runner.query(`SELECT pg_try_advisory_lock(hashtext($1)) AS ok`, [runnerLockKey(jobId)]);
+    // Thrown, not skipped: pg-boss retries later, and by then the other runner has finished (or died).
+    if (!ok) throw new Error(`billing close ${jobId} is being run by another worker`);
+    try {
+      await runClose(ctx, jobId);
+    } finally {
+      await runner.query(`SELECT pg_advisory_unlock(hashtext($1))`, [runnerLockKey(jobId)]).catch(() => undefined);
+    }
+  } finally {
+    await runner.release();
+  }
+}
+
+async function runnerLockFree(ctx: AppContext, jobId: string): Promise<boolean> {
+  const [{ free }] = await ctx.db.query(
+    `SELECT CASE WHEN pg_try_advisory_lock(hashtext($1)) THEN pg_advisory_unlock(hashtext($1)) ELSE false END AS free`, [runnerLockKey(jobId)]);
+  return free;
+}
+
+/** One run of the close: every pending account in turn; an account that fails is reported and left for the next run. */
+async function runClose(ctx: AppContext, jobId: string): Promise<void> {
   const jobs = ctx.db.getRepository(BillingJob);
   const job = await jobs.findOneBy({ id: jobId });
   if (!job || job.status === 'completed') return;
@@ -98,8 +128,13 @@ export async function runCloseJob(ctx: AppContext, jobId: string): Promise<void>
 /** Works the close queue; at start-up, a job left queued or running by a crash is queued again. */
 export async function startBillingJobs(ctx: AppContext): Promise<void> {
   await ctx.outbox.work<{ jobId: string }>(BILLING_CLOSE_QUEUE, (data) => runCloseJob(ctx, data.jobId));
-  const stranded: { id: string }[] = await ctx.db.query(
-    `SELECT b.id FROM billing_jobs b WHERE b.status IN ('queued','running') AND NOT EXISTS (
-       SELECT 1 FROM pgboss.job j WHERE j.name = $1 AND j.data->>'jobId' = b.id::text AND j.state IN ('created','retry','active'))`, [BILLING_CLOSE_QUEUE]);
-  for (const s of stranded) await ctx.outbox.sendJob(BILLING_CLOSE_QUEUE, { jobId: s.id });
+  const stranded: { id: string; active: boolean }[] = await ctx.db.query(
+    `SELECT b.id, EXISTS (SELECT 1 FROM pgboss.job j WHERE j.name = $1 AND j.data->>'jobId' = b.id::text AND j.state = 'active') AS active
+       FROM billing_jobs b WHERE b.status IN ('queued','running') AND NOT EXISTS (
+       SELECT 1 FROM pgboss.job j WHERE j.name = $1 AND j.data->>'jobId' = b.id::text AND j.state IN ('created','retry'))`, [BILLING_CLOSE_QUEUE]);
+  for (const s of stranded) {
+    // "active" in pg-boss but nobody holds the runner lock: its worker was killed (kill -9, OOM, power), so run it again.
+    if (s.active && !(await runnerLockFree(ctx, s.id))) continue;
+    await ctx.outbox.sendJob(BILLING_CLOSE_QUEUE, { jobId: s.id });
+  }
 }
