@@ -1,0 +1,106 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+
+export function percentile(values: number[], p: number): number {
+  if (values.length === 0) return NaN;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))]!;
+}
+
+export const median = (values: number[]) => percentile(values, 50);
+
+export interface Figure {
+  section: string;
+  name: string;
+  value: number;
+  unit: string;
+  /** A target, when the brief sets one: `max` for "at most", `min` for "at least". */
+  target?: { max?: number; min?: number };
+  note?: string;
+}
+
+export const verdict = (f: Figure): string => {
+  if (!f.target || !Number.isFinite(f.value)) return f.target ? 'MISS' : '';
+  const ok = (f.target.max === undefined || f.value <= f.target.max) && (f.target.min === undefined || f.value >= f.target.min);
+  return ok ? 'pass' : 'MISS';
+};
+
+const fmt = (v: number) => (!Number.isFinite(v) ? 'n/a' : Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 10 ? v.toFixed(1) : v.toFixed(2));
+const targetText = (f: Figure) => !f.target ? '' : f.target.max !== undefined ? `≤ ${fmt(f.target.max)} ${f.unit}` : `≥ ${fmt(f.target.min!)} ${f.unit}`;
+
+export function printTable(figures: Figure[]): string {
+  const rows = figures.map((f) => [f.section, f.name, `${fmt(f.value)} ${f.unit}`.trim(), targetText(f), verdict(f), f.note ?? '']);
+  const head = ['#', 'figure', 'value', 'target', 'result', 'note'];
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const line = (r: string[]) => r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd();
+  return [line(head), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
+}
+
+export interface ApiChild {
+  url: string;
+  pid: number;
+  child: ChildProcess;
+  stop(): Promise<void>;
+}
+
+/**
+ * The API as its own process (`node --import tsx src/index.ts`), so that its memory can be read from /proc.
+ * BENCH_API_NODE_ARGS adds node flags, e.g. `--cpu-prof --cpu-prof-dir=/tmp/femtoslot-prof` to profile a run.
+ */
+export async function startApiChild(env: Record<string, string>, port: number): Promise<ApiChild> {
+  const child = spawn(process.execPath, [...(process.env.BENCH_API_NODE_ARGS?.split(' ').filter(Boolean) ?? []), '--import', 'tsx', 'src/index.ts'], {
+    cwd: path.join(repoRoot, 'apps', 'api'),
+    env: { ...process.env, ...env, PORT: String(port), HOST: '127.0.0.1', TSX_TSCONFIG_PATH: path.join(repoRoot, 'apps', 'api', 'tsconfig.json') },
+    stdio: ['ignore', 'ignore', 'pipe'],
+  });
+  let stderr = '';
+  child.stderr?.on('data', (d) => { stderr = (stderr + d).slice(-4000); });
+  let exited = false;
+  child.on('exit', () => { exited = true; });
+  const url = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (exited) throw new Error(`the API exited at start:\n${stderr}`);
+    const ok = await fetch(`${url}/api/health`).then((r) => r.ok).catch(() => false);
+    if (ok) break;
+    if (Date.now() > deadline) { child.kill('SIGKILL'); throw new Error(`the API did not answer /api/health within 60 s:\n${stderr}`); }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return {
+    url, pid: child.pid!, child,
+    stop: async () => {
+      if (exited) return;
+      child.kill('SIGTERM');
+      const until = Date.now() + 10_000;
+      while (!exited && Date.now() < until) await new Promise((r) => setTimeout(r, 100));
+      if (!exited) child.kill('SIGKILL');
+    },
+  };
+}
+
+/** Signs in through the API and returns the session cookie (`name=value`). */
+export async function signIn(url: string, email: string, password: string): Promise<string> {
+  const r = await fetch(`${url}/api/auth/login`, {
+    method: 'POST', headers: { 'content-type': 'application/json', origin: url }, body: JSON.stringify({ email, password }),
+  });
+  if (r.status !== 200) throw new Error(`sign-in as ${email}: ${r.status} ${await r.text()}`);
+  const cookie = r.headers.getSetCookie().map((c) => c.split(';')[0]!).find((c) => c.startsWith('femtoslot_session='));
+  if (!cookie) throw new Error('sign-in gave no session cookie');
+  return cookie;
+}
+
+/** Resident memory of a process in MB from /proc/<pid>/status (VmRSS now, VmHWM the peak since start or reset). */
+export function memoryOf(pid: number): { rssMb: number; hwmMb: number } {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  const kb = (key: string) => Number(new RegExp(`^${key}:\\s+(\\d+) kB`, 'm').exec(status)?.[1] ?? NaN);
+  return { rssMb: kb('VmRSS') / 1024, hwmMb: kb('VmHWM') / 1024 };
+}
+
+/** Resets VmHWM to the current RSS (`echo 5 > /proc/<pid>/clear_refs`, Linux ≥ 4.0); false when not permitted. */
+export function resetPeakMemory(pid: number): boolean {
+  try { writeFileSync(`/proc/${pid}/clear_refs`, '5'); return true; } catch { return false; }
+}
