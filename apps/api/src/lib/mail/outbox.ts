@@ -21,6 +21,7 @@ export interface OutboxOptions {
 export class Outbox {
   private boss: PgBoss;
   private started = false;
+  private readonly queues = new Set<string>();
 
   constructor(private readonly db: DataSource, connectionString: string, private readonly transport: MailTransport,
     private readonly logger: Logger, private readonly options: OutboxOptions) {
@@ -49,12 +50,19 @@ export class Outbox {
 
   /** Background work on the same queue system (reminders, later the period close), transactional when given a manager. */
   async sendJob(queue: string, data: object, options: { startAfter?: Date; singletonKey?: string } = {}, manager?: EntityManager): Promise<void> {
-    await this.boss.createQueue(queue).catch(() => undefined);
+    await this.ensureQueue(queue);
     await this.boss.send(queue, data, { ...options, retryLimit: 5, retryDelay: 30, retryBackoff: true, db: manager ? this.dbFor(manager) : undefined });
   }
 
-  async work<T extends object>(queue: string, handler: (data: T) => Promise<void>): Promise<void> {
+  /** Created once per process, not before every job. */
+  private async ensureQueue(queue: string): Promise<void> {
+    if (this.queues.has(queue)) return;
     await this.boss.createQueue(queue).catch(() => undefined);
+    this.queues.add(queue);
+  }
+
+  async work<T extends object>(queue: string, handler: (data: T) => Promise<void>): Promise<void> {
+    await this.ensureQueue(queue);
     await this.boss.work<T>(queue, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1 }, async (jobs) => {
       for (const job of jobs) await handler(job.data);
     });

@@ -1,4 +1,4 @@
-import { cancellationFeePercent, changeoverMinutes, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
+import { cancellationFeePercent, changeoverFor, parseChangeoverModel, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
 import { In, IsNull, LessThan, MoreThan, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
@@ -58,14 +58,16 @@ export function bookingsService(ctx: AppContext) {
     const before = new Map<string, number>();
     for (const [instrumentId, list] of byInstrument) {
       const t = await loadInstrumentTimeline(db.manager, instrumentId);
+      // Parsed once per instrument, not once per neighbouring pair (measured in docs/benchmarks.md).
+      const model = parseChangeoverModel(t.model);
       for (let i = 1; i < list.length; i++) {
         const prev = list[i - 1]!;
         const next = list[i]!;
         const nextState = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!nextState) continue;
         const minutes = prev.kind === 'maintenance'
-          ? changeoverMinutes(null, nextState, t.model, { afterMaintenance: true }).totalMinutes
-          : changeoverMinutes(stateOf(prev, t.configurations), nextState, t.model).totalMinutes;
+          ? changeoverFor(null, nextState, model, true).totalMinutes
+          : changeoverFor(stateOf(prev, t.configurations), nextState, model, false).totalMinutes;
         before.set(next.id, minutes);
         if (minutes <= 0) continue;
         changeovers.push({
