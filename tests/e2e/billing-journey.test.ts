@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createStripeFake, type ListeningStripeFake } from '../../infra/local-fakes/stripe/create-stripe-fake';
 import { freeLoopbackPort, startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { scratchDatabase } from '@femtoslot/api/src/test-support/scratch-database';
-import { pastSession } from '@femtoslot/api/src/test-support/past-session';
+import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { seedDemo } from '@femtoslot/api/src/db/seed/seed';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
 import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
@@ -49,12 +49,7 @@ async function confirmedCollaboratorSession() {
   const account = await db.getRepository(Account).findOneByOrFail({ organisationId: user.organisationId });
   const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
   const dfg = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'dfg' });
-  let start = new Date(Date.now() - 3 * 3_600_000);
-  start.setUTCMinutes(0, 0, 0);
-  for (let i = 0; i < 200; i++, start = new Date(start.getTime() - 3_600_000)) {
-    const busy = await db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1 AND status IN ('requested','approved','completed','scheduled') AND tstzrange(starts_at, ends_at) && tstzrange($2, $3)`, [aurora.id, start, new Date(start.getTime() + 2 * 3_600_000)]);
-    if (busy[0].n === 0) break;
-  }
+  const start = await freePastSlot(db, aurora.id, 2, new Date(Date.now() - 3_600_000));
   const booking = await pastSession(t, { instrumentId: aurora.id, configuration: dfg, accountId: account.id, userId: user.id, organisationId: user.organisationId, startsAt: start, hours: 2, nm: 4300 });
   await db.getRepository(TimelineBlock).update({ id: booking.id }, { status: 'completed' });
   const end = new Date(start.getTime() + 2 * 3_600_000);
@@ -105,7 +100,7 @@ describe('billing journey in Chromium', () => {
       const r = collaborator.getByTestId('invoice-row').first();
       await r.waitFor();
       return r.getAttribute('data-status');
-    }, { timeout: 20_000, intervals: [500, 1000, 2000] }).toBe('paid');
+    }, { timeout: 20_000, interval: 1000 }).toBe('paid');
     await screenshot(collaborator, 'billing-06-collaborator-paid');
   });
 });

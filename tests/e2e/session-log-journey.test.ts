@@ -2,7 +2,8 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { pastSession } from '@femtoslot/api/src/test-support/past-session';
+import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
+import { gaussianTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
 import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
 import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
@@ -24,13 +25,10 @@ afterAll(async () => {
 
 /** A Gaussian intensity autocorrelation for a 90 fs pulse: AC FWHM = √2 × pulse FWHM (Diels & Rudolph). */
 function traceFile(): string {
-  const ac = Math.SQRT2 * 90;
-  const lines = ['delay_fs,signal'];
-  for (let d = -4 * ac; d <= 4 * ac; d += ac / 30) lines.push(`${d.toFixed(2)},${(0.03 + Math.exp((-4 * Math.LN2 * d * d) / (ac * ac))).toFixed(6)}`);
   const dir = path.join(process.env.ARTIFACTS_DIR ?? 'artifacts', 'fixtures');
   mkdirSync(dir, { recursive: true });
   const file = path.join(dir, 'ac-trace-90fs.csv');
-  writeFileSync(file, lines.join('\n'));
+  writeFileSync(file, traceCsv(gaussianTrace(90, { baseline: 0.03, samplesPerFwhm: 30 })));
   return file;
 }
 
@@ -41,13 +39,7 @@ describe('session-log journey in Chromium', () => {
     const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
     const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
     const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
-    // The most recent free hour that ended at least an hour ago (the seed books weekdays 09:00–12:00 and 14:00–17:30).
-    let start = new Date(Date.now() - 2 * 3_600_000);
-    start.setUTCMinutes(0, 0, 0);
-    for (let i = 0; i < 96; i++, start = new Date(start.getTime() - 3_600_000)) {
-      const busy = await db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1 AND status IN ('requested','approved','completed','scheduled') AND tstzrange(starts_at, ends_at) && tstzrange($2, $3)`, [aurora.id, start, new Date(start.getTime() + 3_600_000)]);
-      if (busy[0].n === 0) break;
-    }
+    const start = await freePastSlot(db, aurora.id, 1, new Date(Date.now() - 3_600_000));
     const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: start, hours: 1, nm: 800 });
 
     const page = await memberBrowser.context.newPage();

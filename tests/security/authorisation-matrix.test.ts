@@ -2,6 +2,7 @@ import { roles, type Role } from '@femtoslot/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { routeTable } from '@femtoslot/api/src/server';
 import { makePeople, startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { concretePath } from '../support/routes';
 
 let t: TestApi;
 let agents: Record<Role, Awaited<ReturnType<TestApi['signIn']>>>;
@@ -13,8 +14,6 @@ beforeAll(async () => {
 });
 afterAll(async () => { await t?.close(); });
 
-const fakeId = '00000000-0000-4000-8000-000000000000';
-const concrete = (path: string) => `/api${path.replace(/:file\b/, 'x.ics').replace(/:token\b/, 'x'.repeat(24)).replace(/:[a-zA-Z]+/g, fakeId)}`;
 
 describe('authorisation matrix, generated from the router table', () => {
   it('when the table is read, then every route states who may call it', () => {
@@ -29,7 +28,7 @@ describe('authorisation matrix, generated from the router table', () => {
   it('when each role calls each route, then the guard answers 401 signed out, 403 for a role it excludes, and lets allowed roles through', async () => {
     const failures: string[] = [];
     for (const r of routeTable(t.api.ctx)) {
-      const url = concrete(r.path);
+      const url = concretePath(r.path);
       const anonymous = await t.http()[r.method](url).send({});
       if (r.access !== 'public' && anonymous.status !== 401) failures.push(`${r.method} ${r.path} signed out → ${anonymous.status}`);
       if (r.access === 'public') continue;

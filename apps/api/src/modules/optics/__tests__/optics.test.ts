@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeInstrument } from '../../../test-support/booking-fixture';
 import { makePeople, startTestApi, type TestApi } from '../../../test-support/test-api';
+import { gaussianTrace, traceCsv } from '../../../test-support/traces';
 
 let t: TestApi;
 let agent: Awaited<ReturnType<TestApi['signIn']>>;
@@ -10,14 +11,6 @@ beforeAll(async () => {
   agent = await t.signIn(users.member!.email);
 });
 afterAll(async () => { await t?.close(); });
-
-/** Gaussian intensity autocorrelation of a pulse of FWHM τ has FWHM √2·τ (Diels & Rudolph, Ultrashort Laser Pulse Phenomena). */
-function gaussianTrace(pulseFwhmFs: number, baseline = 0.05): Array<[number, number]> {
-  const acFwhm = Math.SQRT2 * pulseFwhmFs;
-  const points: Array<[number, number]> = [];
-  for (let d = -4 * acFwhm; d <= 4 * acFwhm; d += acFwhm / 40) points.push([d, baseline + Math.exp((-4 * Math.LN2 * d * d) / (acFwhm * acFwhm))]);
-  return points;
-}
 
 describe('GET /api/optics/mixing', () => {
   it('when pump 800 nm and signal 1300 nm, then idler 2080.0 nm and DFG 3466.7 nm with unit conversions (Boyd, Nonlinear Optics; CODATA 2018)', async () => {
@@ -72,7 +65,7 @@ describe('POST /api/optics/autocorrelation', () => {
   });
 
   it('when the same trace is uploaded as a semicolon CSV with a header for sech², then the pulse is AC/1.543 (Diels & Rudolph)', async () => {
-    const csv = ['delay_fs;signal', ...gaussianTrace(100).map(([d, s]) => `${d.toFixed(3)};${s.toFixed(6)}`)].join('\n');
+    const csv = traceCsv(gaussianTrace(100), { delimiter: ';', delayDigits: 3 });
     const r = await agent.post('/api/optics/autocorrelation').field('shape', 'sech2').attach('trace', Buffer.from(csv), { filename: 'trace.csv', contentType: 'text/csv' });
     expect(r.status).toBe(200);
     expect(r.body.pulseFwhmFs).toBeCloseTo(r.body.acFwhmFs / 1.543, 0);

@@ -4,19 +4,15 @@ import { usageService } from '../usage.service';
 import { makeBooker, makeInstrument, plusHours } from '../../../test-support/booking-fixture';
 import { waitForMail } from '../../../test-support/maildev';
 import { pastSession } from '../../../test-support/past-session';
+import { gaussianTrace, traceCsv } from '../../../test-support/traces';
 import { makePeople, startTestApi, type TestApi } from '../../../test-support/test-api';
 
 let t: TestApi;
 beforeAll(async () => { t = await startTestApi(); });
 afterAll(async () => { await t?.close(); });
 
-/** Gaussian intensity autocorrelation of a pulse of FWHM τ has FWHM √2·τ (Diels & Rudolph, Ultrashort Laser Pulse Phenomena). */
-const traceCsv = (pulseFs: number) => {
-  const ac = Math.SQRT2 * pulseFs;
-  const lines = ['delay_fs,signal'];
-  for (let d = -4 * ac; d <= 4 * ac; d += ac / 30) lines.push(`${d.toFixed(2)},${(0.02 + Math.exp((-4 * Math.LN2 * d * d) / (ac * ac))).toFixed(6)}`);
-  return lines.join('\r\n');
-};
+/** A Gaussian pulse's autocorrelation trace as CSV (AC FWHM = √2 × pulse FWHM, Diels & Rudolph). */
+const acCsv = (pulseFs: number) => traceCsv(gaussianTrace(pulseFs, { baseline: 0.02, samplesPerFwhm: 30 }), { lineEnd: '\r\n' });
 
 async function setup(kind: 'opa_signal' | 'dfg' = 'opa_signal') {
   const { instrument, configs } = await makeInstrument(t);
@@ -33,10 +29,10 @@ const segment = (configurationId: string, s: Date, e: Date, minNm: number, maxNm
 describe('session log', () => {
   it('when a member logs a session with a trace upload and two segments, then the log is stored, the booking completes, and staff confirm with an audited adjustment', async () => {
     const { configs, me, b, start } = await setup();
-    const up = await me.agent.post(`/api/bookings/${b.id}/attachments`).attach('file', Buffer.from(traceCsv(80)), { filename: 'ac-trace.csv', contentType: 'text/csv' });
+    const up = await me.agent.post(`/api/bookings/${b.id}/attachments`).attach('file', Buffer.from(acCsv(80)), { filename: 'ac-trace.csv', contentType: 'text/csv' });
     expect(up.status).toBe(201);
     expect(up.body.attachment).toMatchObject({ contentType: 'text/csv', originalName: 'ac-trace.csv' });
-    const pulse = await me.agent.post('/api/optics/autocorrelation').field('shape', 'gaussian').attach('trace', Buffer.from(traceCsv(80)), 'ac-trace.csv');
+    const pulse = await me.agent.post('/api/optics/autocorrelation').field('shape', 'gaussian').attach('trace', Buffer.from(acCsv(80)), 'ac-trace.csv');
     expect(Math.abs(pulse.body.pulseFwhmFs - 80) / 80).toBeLessThan(0.01);
     const body = {
       actualStartsAt: start.toISOString(), actualEndsAt: plusHours(start, 3).toISOString(), notes: 'Scanned the signal then parked at 1450 nm',
