@@ -12,6 +12,7 @@ export * from './timeline/timeline-schemas';
 export {
   checkTimeline,
   findAlternativeSlots,
+  minutesNeededAfterBlock,
   type NeighbourCheck,
   type TimelineCheck,
   type TimeSlot,

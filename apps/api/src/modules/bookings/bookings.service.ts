@@ -1,4 +1,4 @@
-import { cancellationFeePercent, changeoverFor, parseChangeoverModel, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
+import { cancellationFeePercent, minutesNeededAfterBlock, parseChangeoverModel, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
 import { In, IsNull, LessThan, MoreThan, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
@@ -65,9 +65,7 @@ export function bookingsService(ctx: AppContext) {
         const next = list[i]!;
         const nextState = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!nextState) continue;
-        const minutes = prev.kind === 'maintenance'
-          ? changeoverFor(null, nextState, model, true).totalMinutes
-          : changeoverFor(stateOf(prev, t.configurations), nextState, model, false).totalMinutes;
+        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, nextState, model);
         before.set(next.id, minutes);
         if (minutes <= 0) continue;
         changeovers.push({

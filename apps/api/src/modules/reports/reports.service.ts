@@ -1,4 +1,4 @@
-import { changeoverMinutes, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
+import { minutesNeededAfterBlock, parseChangeoverModel, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { FacilitySettings } from '../facility/facility-settings.entity';
@@ -93,13 +93,14 @@ export function reportsService(ctx: AppContext) {
     for (const b of blocks) byInstrument.set(b.instrumentId, [...(byInstrument.get(b.instrumentId) ?? []), b]);
     for (const [instrumentId, list] of byInstrument) {
       const t = await loadInstrumentTimeline(ctx.db.manager, instrumentId);
+      const model = parseChangeoverModel(t.model);
       const sums = new Map<string, number>();
       for (let i = 1; i < list.length; i++) {
         const next = list[i]!;
         const prev = list[i - 1]!;
         const state = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!state) continue;
-        const minutes = prev.kind === 'maintenance' ? changeoverMinutes(null, state, t.model, { afterMaintenance: true }).totalMinutes : changeoverMinutes(stateOf(prev, t.configurations), state, t.model).totalMinutes;
+        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, state, model);
         const p = periodOf.get(next.id)!;
         sums.set(p, (sums.get(p) ?? 0) + minutes);
       }
