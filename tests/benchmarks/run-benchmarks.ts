@@ -55,6 +55,10 @@ async function setBenchSourcesActive(databaseUrl: string, active: boolean): Prom
   try { await c.query(`UPDATE instruments SET active = $1 WHERE name LIKE 'Bench source %'`, [active]); } finally { await c.end(); }
 }
 
+/** `BENCH_ONLY=1,3` runs only those sections (1 creation, 2 week query, 3 close, 4 planner, 5 bundle, 6 render). */
+const only = (process.env.BENCH_ONLY ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+const wanted = (section: string) => only.length === 0 || only.includes(section);
+
 export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
   const figures: Figure[] = [];
   const details: string[] = [];
@@ -63,8 +67,8 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
 
   const world = await timed('seed: 32 sources, 200 accounts, 20,000 bookings, 5,000 confirmed logs, 300-event week', () => seedBenchWorld(o.databaseUrl));
   const webDir = mkdtempSync(path.join(os.tmpdir(), 'femtoslot-bench-web-'));
-  await timed('web build with manifest', async () => buildWebWithManifest(webDir));
-  add(benchWebBundle(webDir));
+  if (wanted('5') || wanted('6')) await timed('web build with manifest', async () => buildWebWithManifest(webDir));
+  if (wanted('5')) add(benchWebBundle(webDir));
 
   const webhookSecret = 'whsec_femtoslot_bench';
   const fake = createStripeFake({ webhookUrl: `http://127.0.0.1:${o.apiPort}/api/webhooks/stripe`, webhookSecret, knobs: { latencyMs: 0 } });
@@ -79,21 +83,21 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
     api = await timed('API child process', () => startApiChild(apiEnv, o.apiPort));
     const apiUrl = api.url;
     const cookie = await signIn(api.url, world.booker.email, BENCH_PASSWORD);
-    add(await timed('1 booking creation (API vs raw SQL)', () => benchBookingCreation({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
-    add(await timed('2 week query (API vs raw SQL)', () => benchWeekQuery({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
+    if (wanted('1')) add(await timed('1 booking creation (API vs raw SQL)', () => benchBookingCreation({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
+    if (wanted('2')) add(await timed('2 week query (API vs raw SQL)', () => benchWeekQuery({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
     // A fresh API process for the close, so that its peak memory is the close's and not the load runs' heap.
     await api.stop();
     const fresh = api = await timed('fresh API child process for the close', () => startApiChild(apiEnv, o.apiPort));
-    add(await timed('3 period close', () => benchPeriodClose({ apiUrl: fresh.url, apiPid: fresh.pid, world })));
+    if (wanted('3')) add(await timed('3 period close', () => benchPeriodClose({ apiUrl: fresh.url, apiPid: fresh.pid, world })));
     // A facility has a handful of instruments: the 32 bench sources step aside, so the page loads as it would there.
     await setBenchSourcesActive(o.databaseUrl, false);
-    add(await timed('6 week render in Chromium', () => benchWeekRender({ apiUrl: fresh.url, world, chromiumPath: o.chromiumPath })));
+    if (wanted('6')) add(await timed('6 week render in Chromium', () => benchWeekRender({ apiUrl: fresh.url, world, chromiumPath: o.chromiumPath })));
   } finally {
     await api?.stop();
     await fakeServer.close().catch(() => undefined);
     rmSync(webDir, { recursive: true, force: true });
   }
-  add(await timed('4 planner', () => benchPlanner()));
+  if (wanted('4')) add(await timed('4 planner', () => benchPlanner()));
 
   const order = ['1', '2', '3', '4', '5', '6'];
   figures.sort((a, b) => order.indexOf(a.section) - order.indexOf(b.section));
