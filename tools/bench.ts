@@ -30,7 +30,7 @@ async function main(): Promise<number> {
   try {
     const chromium = await ensureChromium();
     binDir = await step('PostgreSQL server binaries', ensurePostgresBinaries);
-    const cluster = await step(`PostgreSQL cluster "bench" on 127.0.0.1:${pgPort}`, () => startCluster(binDir!, pgData, pgPort, ['-c max_connections=200']));
+    const cluster = await step(`PostgreSQL cluster "bench" on 127.0.0.1:${pgPort}`, () => startCluster(binDir!, pgData, pgPort, ['-c max_connections=200', '-c shared_preload_libraries=pg_stat_statements']));
     const databaseUrl = await step('database femtoslot_bench (fresh)', () => ensureDatabase(cluster, 'femtoslot_bench', { fresh: true }));
     await step('migrations', async () => {
       const { migrate } = await import('../apps/api/src/db/migrate');

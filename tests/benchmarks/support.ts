@@ -2,6 +2,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import pg from 'pg';
 
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 
@@ -38,6 +39,27 @@ export function printTable(figures: Figure[]): string {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
   const line = (r: string[]) => r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd();
   return [line(head), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
+}
+
+/**
+ * SQL statements the database ran while `fn` ran (pg_stat_statements, preloaded by tools/bench.ts): every statement of
+ * the API, background workers (mail, pg-boss upkeep) included, BEGIN/COMMIT counted. NaN when the extension is missing.
+ */
+export async function countStatements<T>(databaseUrl: string, fn: () => Promise<T>): Promise<{ out: T; statements: number }> {
+  const c = new pg.Client({ connectionString: databaseUrl });
+  await c.connect();
+  let available = true;
+  try {
+    await c.query('CREATE EXTENSION IF NOT EXISTS pg_stat_statements');
+    await c.query('SELECT pg_stat_statements_reset()');
+  } catch { available = false; }
+  try {
+    const out = await fn();
+    if (!available) return { out, statements: NaN };
+    const { rows } = await c.query(`SELECT coalesce(sum(calls), 0)::int AS n FROM pg_stat_statements
+      WHERE dbid = (SELECT oid FROM pg_database WHERE datname = current_database()) AND query NOT LIKE '%pg_stat_statements%'`);
+    return { out, statements: rows[0].n as number };
+  } finally { await c.end(); }
 }
 
 export interface ApiChild {

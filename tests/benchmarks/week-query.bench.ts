@@ -6,7 +6,7 @@
 import autocannon from 'autocannon';
 import pg from 'pg';
 import type { BenchWorld } from './bench-world';
-import { percentile, type Figure } from './support';
+import { countStatements, percentile, type Figure } from './support';
 
 const SECONDS = Number(process.env.BENCH_QUERY_SECONDS ?? 8);
 const IN_FLIGHT = 10;
@@ -43,7 +43,7 @@ async function api(url: string, cookie: string, week: BenchWorld['queryWeek'], s
   });
   instance.on('response', (_c: unknown, status: number, _b: number, ms: number) => { latencies.push(ms); if (status !== 200) non2xx++; });
   const result = await instance;
-  return { rate: latencies.length / result.duration, p95: percentile(latencies, 95), p50: percentile(latencies, 50), non2xx };
+  return { count: latencies.length, rate: latencies.length / result.duration, p95: percentile(latencies, 95), p50: percentile(latencies, 50), non2xx };
 }
 
 export async function benchWeekQuery(o: { apiUrl: string; cookie: string; databaseUrl: string; world: BenchWorld }): Promise<{ figures: Figure[]; detail: string }> {
@@ -52,11 +52,12 @@ export async function benchWeekQuery(o: { apiUrl: string; cookie: string; databa
   const body = (await probe.json()) as { bookings?: unknown[]; changeovers?: unknown[] };
   if (probe.status !== 200) throw new Error(`week query: ${probe.status} ${JSON.stringify(body).slice(0, 300)}`);
   await api(o.apiUrl, o.cookie, week, 2);
-  const a = await api(o.apiUrl, o.cookie, week, SECONDS);
+  const { out: a, statements } = await countStatements(o.databaseUrl, () => api(o.apiUrl, o.cookie, week, SECONDS));
   const r = await raw(o.databaseUrl, week);
   return {
     figures: [
       { section: '2', name: 'week query p95 through the API', value: a.p95, unit: 'ms', target: { max: 20 }, note: `${a.rate.toFixed(0)} req/s, p50 ${a.p50.toFixed(1)} ms, ${body.bookings?.length ?? 0} bookings + ${body.changeovers?.length ?? 0} bands, ${a.non2xx} non-200` },
+      { section: '2', name: 'SQL statements per week query', value: statements / Math.max(1, a.count), unit: '', note: 'pg_stat_statements; background workers included' },
       { section: '2', name: 'week query p95 raw SQL', value: r.p95, unit: 'ms', note: `${r.rate.toFixed(0)} queries/s, ${r.rows} rows` },
       { section: '2', name: 'week query API rate / raw rate', value: a.rate / r.rate, unit: '×', target: { min: 0.5 } },
     ],
