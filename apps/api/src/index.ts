@@ -12,6 +12,7 @@ import { createApp } from './server';
 import { startBookingJobs } from './modules/bookings/bookings.service';
 import { startUsageJobs } from './modules/usage/usage.service';
 import { startBillingJobs } from './modules/billing/close-job';
+import { ReferenceCache } from './modules/instruments/reference-data';
 
 export interface RunningApi {
   url: string;
@@ -29,7 +30,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
     retryLimit: env.OUTBOX_RETRY_LIMIT, retryDelaySeconds: env.OUTBOX_RETRY_DELAY_SECONDS, pollingIntervalSeconds: opts.pollingIntervalSeconds,
   });
   await outbox.start({ work: opts.mailWorker ?? true });
-  const ctx: AppContext = { db, env, logger, outbox };
+  const ctx: AppContext = { db, env, logger, outbox, reference: new ReferenceCache(db) };
   if (opts.mailWorker ?? true) {
     await startBookingJobs(ctx);
     await startUsageJobs(ctx);

@@ -45,3 +45,7 @@ import { Invoice } from '../modules/invoices/invoice.entity';
 import { StripeEvent } from '../modules/webhooks/stripe-event.entity';
 (entities as unknown as (new () => object)[]).push(RateCard, BillingPeriod, BillingPeriodAccount, BillingJob, JournalLine, AccountBillingDetails, Invoice, StripeEvent);
 (migrations as unknown as (new () => object)[]).push(Billing1764892800000);
+
+// In-memory reference data (issue 7): one revision bumped by triggers on the tables every process caches.
+import { ReferenceRevision1764979200000 } from './migrations/1764979200000-reference-revision';
+(migrations as unknown as (new () => object)[]).push(ReferenceRevision1764979200000);

@@ -3,7 +3,6 @@ import { createSecretKey, type KeyObject } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 import type { Role } from '@femtoslot/shared';
 import type { AppContext } from '../context';
-import { User } from '../../modules/users/user.entity';
 
 export const SESSION_COOKIE = 'femtoslot_session';
 
@@ -18,6 +17,8 @@ export interface SessionUser {
 declare module 'express-serve-static-core' {
   interface Request {
     user?: SessionUser;
+    /** reference_revision as read with the session user (see ReferenceCache). */
+    referenceRevision?: string;
   }
 }
 
@@ -58,8 +59,16 @@ export function authenticate(ctx: AppContext) {
         userId = undefined;
       }
       if (userId && /^[0-9a-f-]{36}$/i.test(userId)) {
-        const user = await ctx.db.getRepository(User).findOne({ where: { id: userId, active: true }, loadEagerRelations: false });
-        if (user) req.user = { id: user.id, role: user.role, organisationId: user.organisationId, email: user.email, name: user.name };
+        // Every signed-in request runs this: one plain statement, no entity hydration, and the reference revision with
+        // it so that a route that reads the cached reference data needs no statement of its own for that.
+        const rows: { id: string; role: Role; organisation_id: string; email: string; name: string; revision: string }[] = await ctx.db.query(
+          `SELECT u.id, u.role, u.organisation_id, u.email, u.name, r.revision::text AS revision
+             FROM users u CROSS JOIN reference_revision r WHERE u.id = $1 AND u.active`, [userId]);
+        const user = rows[0];
+        if (user) {
+          req.user = { id: user.id, role: user.role, organisationId: user.organisation_id, email: user.email, name: user.name };
+          req.referenceRevision = user.revision;
+        }
       }
     }
     next();

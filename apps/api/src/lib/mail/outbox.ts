@@ -6,6 +6,16 @@ import { OutboxMessage, type OutboxAttachment } from './outbox-message.entity';
 import type { RenderedMail } from './templates';
 
 const QUEUE = 'outbox-deliver';
+const JOB_RETRIES = { retryLimit: 5, retryDelay: 30, retryBackoff: true } as const;
+
+/** A background job to queue in the same transaction as the change it follows. */
+export interface OutboxJob {
+  queue: string;
+  data: object;
+  startAfter?: Date;
+}
+
+const toInsert = (j: OutboxJob): PgBoss.JobInsert => ({ name: j.queue, data: j.data, startAfter: j.startAfter, ...JOB_RETRIES });
 
 export interface OutboxOptions {
   retryLimit: number;
@@ -51,7 +61,14 @@ export class Outbox {
   /** Background work on the same queue system (reminders, later the period close), transactional when given a manager. */
   async sendJob(queue: string, data: object, options: { startAfter?: Date; singletonKey?: string } = {}, manager?: EntityManager): Promise<void> {
     await this.ensureQueue(queue);
-    await this.boss.send(queue, data, { ...options, retryLimit: 5, retryDelay: 30, retryBackoff: true, db: manager ? this.dbFor(manager) : undefined });
+    await this.boss.send(queue, data, { ...options, ...JOB_RETRIES, db: manager ? this.dbFor(manager) : undefined });
+  }
+
+  /** Several jobs in one statement, in the caller's transaction. */
+  async sendJobs(manager: EntityManager, jobs: OutboxJob[]): Promise<void> {
+    if (jobs.length === 0) return;
+    for (const j of jobs) await this.ensureQueue(j.queue);
+    await this.boss.insert(jobs.map(toInsert), { db: this.dbFor(manager) });
   }
 
   /** Created once per process, not before every job. */
@@ -73,14 +90,16 @@ export class Outbox {
     return runner ? { executeSql: async (text: string, values: unknown[]) => ({ rows: (await runner.query(text, values, true)).records }) } : undefined;
   }
 
-  async enqueue(manager: EntityManager, to: string, mail: RenderedMail, attachments: OutboxAttachment[] = []): Promise<string> {
+  /** The message row, then its delivery job together with `alsoJobs` (the caller's other jobs) in one statement. */
+  async enqueue(manager: EntityManager, to: string, mail: RenderedMail, attachments: OutboxAttachment[] = [], alsoJobs: OutboxJob[] = []): Promise<string> {
     const row = await manager.getRepository(OutboxMessage).save({
       toAddress: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html, template: mail.template, attachments,
     });
-    const db = this.dbFor(manager);
-    await this.boss.send(QUEUE, { id: row.id }, {
-      retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true, db,
-    });
+    for (const j of alsoJobs) await this.ensureQueue(j.queue);
+    await this.boss.insert([
+      { name: QUEUE, data: { id: row.id }, retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true },
+      ...alsoJobs.map(toInsert),
+    ], { db: this.dbFor(manager) });
     return row.id;
   }
 

@@ -4,14 +4,13 @@ import {
 } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
-import { AppError } from '../../lib/errors/app-error';
-import { Account } from '../accounts/account.entity';
-import { FacilitySettings } from '../facility/facility-settings.entity';
+import { AppError, notFound } from '../../lib/errors/app-error';
+import type { Account } from '../accounts/account.entity';
 import type { Configuration } from '../instruments/configuration.entity';
-import { Organisation } from '../organisations/organisation.entity';
-import { EyewearItem } from '../safety/eyewear-item.entity';
-import { TrainingRecord } from '../safety/training-record.entity';
-import { activeBlocksBetween, loadInstrumentTimeline, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
+import type { Organisation } from '../organisations/organisation.entity';
+import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
+import type { EyewearItem } from '../safety/eyewear-item.entity';
+import { activeBlocksBetween, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
 
@@ -37,31 +36,49 @@ export interface BookingRequest {
 export interface Evaluation {
   problems: Problem[];
   timeline: InstrumentTimeline;
+  reference: ReferenceData;
   configuration: Configuration | null;
   organisation: Organisation;
+  account: BookingAccount | null;
   status: 'requested' | 'approved';
   check: TimelineCheck | null;
   dto: BookingCheckDto;
+}
+
+export type BookingAccount = Pick<Account, 'id' | 'organisationId' | 'kind' | 'name' | 'poNumber' | 'poExpiresOn' | 'status'>;
+
+/** The account and whether the owner holds training valid on `onDate`, in one statement (booking creation is hot). */
+async function accountAndTraining(m: EntityManager, accountId: string, userId: string, onDate: string): Promise<{ account: BookingAccount | null; trained: boolean }> {
+  const rows: { trained: boolean; id: string | null; organisation_id: string; kind: Account['kind']; name: string; po_number: string | null; po_expires_on: string | null; status: Account['status'] }[] = await m.query(
+    `SELECT EXISTS (SELECT 1 FROM training_records t WHERE t.user_id = $2 AND t.completed_on <= $3 AND t.expires_on >= $3) AS trained,
+            a.id, a.organisation_id, a.kind, a.name, a.po_number, a.po_expires_on::text AS po_expires_on, a.status
+       FROM (SELECT 1) AS one LEFT JOIN accounts a ON a.id = $1`, [accountId, userId, onDate]);
+  const r = rows[0]!;
+  return {
+    trained: r.trained,
+    account: r.id ? { id: r.id, organisationId: r.organisation_id, kind: r.kind, name: r.name, poNumber: r.po_number, poExpiresOn: r.po_expires_on, status: r.status } : null,
+  };
 }
 
 const HOUR = 3_600_000;
 const fmt = (d: Date) => d.toISOString().replace(':00.000Z', 'Z');
 
 /** Every rule a booking must pass, gathered (not thrown) so the request form can show them all at once. */
-export async function evaluateBooking(m: EntityManager, req: BookingRequest, opts: { lock: boolean; now?: Date; skipPolicy?: boolean }): Promise<Evaluation> {
+export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, req: BookingRequest, opts: { lock: boolean; now?: Date; skipPolicy?: boolean }): Promise<Evaluation> {
   const now = opts.now ?? new Date();
   const problems: Problem[] = [];
-  const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+  const { timeline, reference } = await timelineOf(cache, m, req.instrumentId, { lock: opts.lock });
+  const facility = reference.facility;
   const p = facility.policies;
-  const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: req.owner.organisationId });
+  const organisation = reference.organisations.get(req.owner.organisationId);
+  if (!organisation) throw notFound('Organisation');
   const external = organisation.kind !== 'internal';
-  const timeline = await loadInstrumentTimeline(m, req.instrumentId, { lock: opts.lock });
   const configuration = timeline.configurations.get(req.configurationId) ?? null;
 
   if (!bookingRoles.has(req.owner.role)) problems.push({ code: 'forbidden', message: `As ${req.owner.role} you cannot book beam time`, status: 403 });
 
-  const account = await m.getRepository(Account).findOneBy({ id: req.accountId });
   const sessionDate = localDate(req.startsAt, facility.timeZone);
+  const { account, trained } = await accountAndTraining(m, req.accountId, req.owner.id, localDate(req.endsAt, facility.timeZone));
   if (!account || account.organisationId !== req.owner.organisationId) {
     problems.push({ code: 'account_unusable', message: 'That account does not belong to your organisation', status: 422 });
   } else if (account.status !== 'approved') {
@@ -92,15 +109,12 @@ export async function evaluateBooking(m: EntityManager, req: BookingRequest, opt
     for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm } });
   }
 
-  const training = await m.createQueryBuilder(TrainingRecord, 't')
-    .where('t.user_id = :id AND t.completed_on <= :d AND t.expires_on >= :d', { id: req.owner.id, d: localDate(req.endsAt, facility.timeZone) }).getCount();
-  if (training === 0) problems.push({ code: 'training_expired', message: `${req.owner.name} has no laser-safety training valid on ${sessionDate}; renew it with the laser-safety officer before booking`, status: 422 });
+  if (!trained) problems.push({ code: 'training_expired', message: `${req.owner.name} has no laser-safety training valid on ${sessionDate}; renew it with the laser-safety officer before booking`, status: 422 });
 
   let eyewear: EyewearItem[] = [];
   const onTable = feasibility?.feasible ? feasibility.onTable : [];
   if (configuration && feasibility?.feasible) {
-    const items = await m.getRepository(EyewearItem).findBy({ active: true });
-    eyewear = eyewearCovering(onTable, items, configuration.requiredOd);
+    eyewear = eyewearCovering(onTable, reference.activeEyewear, configuration.requiredOd);
     if (eyewear.length === 0) {
       problems.push({ code: 'no_eyewear', message: `No eyewear on the list covers every wavelength on the table at OD ≥ ${configuration.requiredOd}; ask the laser-safety officer`, status: 422, details: { onTable, requiredOd: configuration.requiredOd } });
     }
@@ -111,7 +125,7 @@ export async function evaluateBooking(m: EntityManager, req: BookingRequest, opt
     const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
     const blocks = await activeBlocksBetween(m, req.instrumentId, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR));
     const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
-    check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.model, horizonEnd });
+    check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.parsedModel, horizonEnd });
     const details = {
       neededMinutes: Math.max(check.before?.neededMinutes ?? 0, check.after?.neededMinutes ?? 0),
       availableMinutes: Math.min(check.before?.availableMinutes ?? Infinity, check.after?.availableMinutes ?? Infinity),
@@ -150,7 +164,7 @@ export async function evaluateBooking(m: EntityManager, req: BookingRequest, opt
     status,
     cancellationPolicy: describeCancellationPolicy(p),
   };
-  return { problems, timeline, configuration, organisation, status, check, dto };
+  return { problems, timeline, reference, configuration, organisation, account, status, check, dto };
 }
 
 /** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */

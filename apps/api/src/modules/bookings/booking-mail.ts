@@ -1,18 +1,29 @@
 import type { EntityManager } from 'typeorm';
 import type { AppContext } from '../../lib/context';
+import type { OutboxJob } from '../../lib/mail/outbox';
 import { buildCalendar } from '../../lib/calendar/ics';
 import { layout, type RenderedMail } from '../../lib/mail/templates';
-import { FacilitySettings } from '../facility/facility-settings.entity';
-import { Configuration } from '../instruments/configuration.entity';
-import { Instrument } from '../instruments/instrument.entity';
 import { User } from '../users/user.entity';
 import type { TimelineBlock } from './timeline-block.entity';
 
 export type BookingMailKind = 'received' | 'approved' | 'declined' | 'cancelled' | 'moved' | 'displaced' | 'reminder';
 
+// Building an Intl.DateTimeFormat costs far more than using one (measured in docs/benchmarks.md): one pair per zone.
+const formatters = new Map<string, { day: Intl.DateTimeFormat; time: Intl.DateTimeFormat }>();
+function formattersFor(timeZone: string) {
+  let f = formatters.get(timeZone);
+  if (!f) {
+    f = {
+      day: new Intl.DateTimeFormat('en-GB', { timeZone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' }),
+      time: new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }),
+    };
+    formatters.set(timeZone, f);
+  }
+  return f;
+}
+
 function when(b: { startsAt: Date; endsAt: Date }, timeZone: string): string {
-  const day = new Intl.DateTimeFormat('en-GB', { timeZone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' });
-  const time = new Intl.DateTimeFormat('en-GB', { timeZone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' });
+  const { day, time } = formattersFor(timeZone);
   return `${day.format(b.startsAt)}, ${time.format(b.startsAt)}–${time.format(b.endsAt)} (${timeZone})`;
 }
 
@@ -29,11 +40,20 @@ const subjects: Record<BookingMailKind, string> = {
 const SAFETY_LINE = 'Class 4 laser: wear eyewear rated for every wavelength on the table at the OD set by the laser-safety officer, and follow their instructions and local rules.';
 
 /** Queues the mail for a booking event through the outbox, in the caller's transaction, with an .ics where it helps. */
-export async function queueBookingMail(ctx: AppContext, m: EntityManager, kind: BookingMailKind, b: TimelineBlock, extra: { reason?: string | null; feePercent?: number | null } = {}): Promise<void> {
-  const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-  const user = await m.getRepository(User).findOneByOrFail({ id: b.userId! });
-  const cfg = await m.getRepository(Configuration).findOneByOrFail({ id: b.configurationId! });
-  const instrument = await m.getRepository(Instrument).findOneByOrFail({ id: b.instrumentId });
+export async function queueBookingMail(
+  ctx: AppContext, m: EntityManager, kind: BookingMailKind, b: TimelineBlock,
+  extra: {
+    reason?: string | null; feePercent?: number | null; recipient?: { id: string; email: string; name: string };
+    /** Jobs to queue with the mail's own, in one statement. */
+    jobs?: OutboxJob[];
+  } = {},
+): Promise<void> {
+  const reference = await ctx.reference.get(m);
+  const facility = reference.facility;
+  const user = extra.recipient?.id === b.userId ? extra.recipient : await m.getRepository(User).findOneByOrFail({ id: b.userId! });
+  const cfg = reference.configurations.get(b.configurationId!);
+  const instrument = reference.timelines.get(b.instrumentId)?.instrument;
+  if (!cfg || !instrument) throw new Error(`booking ${b.id}: configuration or instrument missing from the reference data`);
   const target = b.targetMinNm === b.targetMaxNm ? `${b.targetMinNm} nm` : `${b.targetMinNm}–${b.targetMaxNm} nm`;
   const what = `${instrument.name}, ${cfg.name} at ${target}`;
   const lines = [`Hello ${user.name},`];
@@ -72,5 +92,5 @@ export async function queueBookingMail(ctx: AppContext, m: EntityManager, kind: 
     text: `${lines.join('\n\n')}\n\n${url}\n`,
     html: layout(subjects[kind], lines, { label: 'Open the calendar', url }),
   };
-  await ctx.outbox.enqueue(m, user.email, mail, attachments);
+  await ctx.outbox.enqueue(m, user.email, mail, attachments, extra.jobs);
 }

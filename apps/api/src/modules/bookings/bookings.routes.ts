@@ -9,7 +9,7 @@ export function bookingsRoutes(ctx: AppContext): RouteDef[] {
   return [
     {
       method: 'get', path: '/bookings', access: 'signed_in', scope: 'organisation',
-      handler: async (req, res) => { res.json(await s.calendar(currentUser(req), bookingListQuerySchema.parse(req.query))); },
+      handler: async (req, res) => { res.json(await s.calendar(currentUser(req), bookingListQuerySchema.parse(req.query), req.referenceRevision)); },
     },
     {
       method: 'get', path: '/bookings/needs-rebooking', access: 'signed_in', scope: 'organisation',

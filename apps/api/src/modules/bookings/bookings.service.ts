@@ -1,19 +1,19 @@
-import { cancellationFeePercent, minutesNeededAfterBlock, parseChangeoverModel, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
-import { In, IsNull, LessThan, MoreThan, type EntityManager } from 'typeorm';
+import { cancellationFeePercent, minutesNeededAfterBlock, type CalendarDto, type ChangeoverBandDto, type CreateBooking, type MoveBookingInput } from '@femtoslot/shared';
+import { In, IsNull, MoreThan, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
+import type { OutboxJob } from '../../lib/mail/outbox';
 import { AppError, forbidden, notFound } from '../../lib/errors/app-error';
 import { recordAudit } from '../audit/audit.service';
 import { AuditEvent } from '../audit/audit-event.entity';
-import { FacilitySettings } from '../facility/facility-settings.entity';
 import { User } from '../users/user.entity';
 import { queueBookingMail } from './booking-mail';
 import { USAGE_REMINDER_QUEUE } from '../usage/usage.service';
 import { auditSnapshot, canSeeDetail, facilityWideRoles, toBookingDto, toMaintenanceDto } from './booking.dto';
 import { evaluateBooking, throwFirst } from './booking-evaluation';
-import { loadLookups } from './lookups';
-import { occupyingStatuses, TimelineBlock } from './timeline-block.entity';
-import { loadInstrumentTimeline, stateOf } from './timeline.repository';
+import { loadLookups, lookupsOf } from './lookups';
+import { TimelineBlock } from './timeline-block.entity';
+import { occupyingBlocksNamed, stateOf } from './timeline.repository';
 
 const REMINDER_QUEUE = 'booking-reminder';
 
@@ -25,13 +25,17 @@ export function bookingsService(ctx: AppContext) {
     return { id: u.id, role: u.role, organisationId: u.organisationId, email: u.email, name: u.name };
   }
 
-  async function scheduleReminder(m: EntityManager, b: TimelineBlock): Promise<void> {
-    if (b.status !== 'approved') return;
-    // Two hours after the end, the owner is reminded to log the session if no log exists by then.
-    await ctx.outbox.sendJob(USAGE_REMINDER_QUEUE, { bookingId: b.id }, { startAfter: new Date(b.endsAt.getTime() + 2 * 3_600_000) }, m);
+  /** Two hours after the end the owner is reminded to log the session (if no log exists by then); 24 h before, of the session. */
+  function reminderJobs(b: TimelineBlock): OutboxJob[] {
+    if (b.status !== 'approved') return [];
+    const jobs: OutboxJob[] = [{ queue: USAGE_REMINDER_QUEUE, data: { bookingId: b.id }, startAfter: new Date(b.endsAt.getTime() + 2 * 3_600_000) }];
     const at = new Date(b.startsAt.getTime() - 24 * 3_600_000);
-    if (at.getTime() < Date.now()) return;
-    await ctx.outbox.sendJob(REMINDER_QUEUE, { bookingId: b.id, startsAt: b.startsAt.toISOString() }, { startAfter: at }, m);
+    if (at.getTime() >= Date.now()) jobs.push({ queue: REMINDER_QUEUE, data: { bookingId: b.id, startsAt: b.startsAt.toISOString() }, startAfter: at });
+    return jobs;
+  }
+
+  async function scheduleReminder(m: EntityManager, b: TimelineBlock): Promise<void> {
+    await ctx.outbox.sendJobs(m, reminderJobs(b));
   }
 
   async function loadForUpdate(m: EntityManager, id: string): Promise<TimelineBlock> {
@@ -44,28 +48,27 @@ export function bookingsService(ctx: AppContext) {
     return toBookingDto(b, viewer, await loadLookups(m, [b]));
   }
 
-  async function calendar(viewer: SessionUser, q: { from: string; to: string; instrumentId?: string }): Promise<CalendarDto> {
-    const from = new Date(q.from);
-    const to = new Date(q.to);
-    const blocks = await db.getRepository(TimelineBlock).find({
-      where: { startsAt: LessThan(to), endsAt: MoreThan(from), status: In([...occupyingStatuses]), ...(q.instrumentId ? { instrumentId: q.instrumentId } : {}) },
-      order: { startsAt: 'ASC' },
-    });
-    const look = await loadLookups(db.manager, blocks);
+  /** Two statements with the session read: the blocks with their names, and (when it changed) the reference data. */
+  async function calendar(viewer: SessionUser, q: { from: string; to: string; instrumentId?: string }, referenceRevision?: string): Promise<CalendarDto> {
+    const { blocks, users, accounts } = await occupyingBlocksNamed(db.manager, new Date(q.from), new Date(q.to), q.instrumentId);
+    const reference = await ctx.reference.get(db.manager, referenceRevision);
+    const look = lookupsOf(reference, users, accounts);
     const changeovers: ChangeoverBandDto[] = [];
     const byInstrument = new Map<string, TimelineBlock[]>();
-    for (const b of blocks) byInstrument.set(b.instrumentId, [...(byInstrument.get(b.instrumentId) ?? []), b]);
+    for (const b of blocks) {
+      const list = byInstrument.get(b.instrumentId);
+      if (list) list.push(b); else byInstrument.set(b.instrumentId, [b]);
+    }
     const before = new Map<string, number>();
     for (const [instrumentId, list] of byInstrument) {
-      const t = await loadInstrumentTimeline(db.manager, instrumentId);
-      // Parsed once per instrument, not once per neighbouring pair (measured in docs/benchmarks.md).
-      const model = parseChangeoverModel(t.model);
+      const t = reference.timelines.get(instrumentId);
+      if (!t) continue;
       for (let i = 1; i < list.length; i++) {
         const prev = list[i - 1]!;
         const next = list[i]!;
         const nextState = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!nextState) continue;
-        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, nextState, model);
+        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, nextState, t.parsedModel);
         before.set(next.id, minutes);
         if (minutes <= 0) continue;
         changeovers.push({
@@ -83,13 +86,13 @@ export function bookingsService(ctx: AppContext) {
   }
 
   async function check(actor: SessionUser, input: CreateBooking) {
-    const e = await evaluateBooking(db.manager, { ...input, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), owner: actor }, { lock: false });
+    const e = await evaluateBooking(db.manager, ctx.reference, { ...input, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), owner: actor }, { lock: false });
     return e.dto;
   }
 
   async function create(actor: SessionUser, input: CreateBooking, requestId?: string) {
     return db.transaction(async (m) => {
-      const e = await evaluateBooking(m, { ...input, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), owner: actor }, { lock: true });
+      const e = await evaluateBooking(m, ctx.reference, { ...input, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), owner: actor }, { lock: true });
       throwFirst(e.problems);
       let rebookOf: TimelineBlock | null = null;
       if (input.rebookOf) {
@@ -107,10 +110,11 @@ export function bookingsService(ctx: AppContext) {
       }));
       if (rebookOf) await m.getRepository(TimelineBlock).update({ id: rebookOf.id }, { rebookedAs: saved.id });
       await recordAudit(m, { actorUserId: actor.id, action: `booking.${e.status}`, entityType: 'booking', entityId: saved.id, after: auditSnapshot(saved), requestId });
-      await queueBookingMail(ctx, m, e.status === 'approved' ? 'approved' : 'received', saved);
-      await scheduleReminder(m, saved);
+      await queueBookingMail(ctx, m, e.status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, jobs: reminderJobs(saved) });
+      // Every name the answer shows is already at hand: no lookups.
+      const look = lookupsOf(e.reference, new Map([[actor.id, actor.name]]), new Map(e.account ? [[e.account.id, e.account.name]] : []));
       return {
-        booking: await dtoOf(m, saved, actor),
+        booking: toBookingDto(saved, actor, look),
         changeover: { beforeMinutes: e.check?.before?.neededMinutes ?? 0, afterMinutes: e.check?.after?.neededMinutes ?? 0 },
         derived: e.dto.derived,
         onTable: e.dto.onTable,
@@ -137,8 +141,7 @@ export function bookingsService(ctx: AppContext) {
       Object.assign(b, { status: decision, decidedBy: actor.id, decidedAt: new Date(), declineReason: decision === 'declined' ? reason : null, sequence: b.sequence + 1 });
       await m.getRepository(TimelineBlock).save(b);
       await recordAudit(m, { actorUserId: actor.id, action: `booking.${decision}`, entityType: 'booking', entityId: id, before, after: auditSnapshot(b), requestId });
-      await queueBookingMail(ctx, m, decision, b, { reason });
-      await scheduleReminder(m, b);
+      await queueBookingMail(ctx, m, decision, b, { reason, jobs: reminderJobs(b) });
       return dtoOf(m, b, actor);
     });
   }
@@ -149,7 +152,7 @@ export function bookingsService(ctx: AppContext) {
       const mayCancel = actor.role === 'staff' || b.userId === actor.id || (actor.role === 'pi' && b.organisationId === actor.organisationId);
       if (!canSeeDetail(actor, b) || !mayCancel) throw forbidden('Only the booking’s owner, their PI or facility staff can cancel it');
       if (b.status !== 'requested' && b.status !== 'approved') throw new AppError('invalid_state', `A ${b.status} booking cannot be cancelled`, 409);
-      const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+      const { facility } = await ctx.reference.get(m);
       const now = new Date();
       // A request staff never approved costs nothing to withdraw.
       const fee = b.status === 'requested' ? 0 : cancellationFeePercent(b.startsAt, now, facility.policies);
@@ -167,7 +170,7 @@ export function bookingsService(ctx: AppContext) {
       const b = await loadForUpdate(m, id);
       if (b.status !== 'requested' && b.status !== 'approved') throw new AppError('invalid_state', `A ${b.status} booking cannot be moved`, 409);
       const owner = await sessionUserOf(m, b.userId!);
-      const e = await evaluateBooking(m, {
+      const e = await evaluateBooking(m, ctx.reference, {
         instrumentId: b.instrumentId, configurationId: b.configurationId!, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
         target: { minNm: b.targetMinNm!, maxNm: b.targetMaxNm! }, accountId: b.accountId!, owner, excludeId: b.id,
       }, { lock: true });
@@ -177,8 +180,7 @@ export function bookingsService(ctx: AppContext) {
       Object.assign(b, { startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), sequence: b.sequence + 1 });
       await m.getRepository(TimelineBlock).save(b);
       await recordAudit(m, { actorUserId: actor.id, action: 'booking.moved', entityType: 'booking', entityId: id, before, after: { ...auditSnapshot(b), note: input.note ?? null }, requestId });
-      await queueBookingMail(ctx, m, 'moved', b);
-      await scheduleReminder(m, b);
+      await queueBookingMail(ctx, m, 'moved', b, { recipient: owner, jobs: reminderJobs(b) });
       return dtoOf(m, b, actor);
     });
   }

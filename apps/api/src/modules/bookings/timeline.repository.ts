@@ -1,16 +1,14 @@
-import type { ChangeoverModel, SourceState, TimelineBlockInput } from '@femtoslot/shared';
-import { In, LessThan, MoreThan, type EntityManager } from 'typeorm';
+import type { SourceState, TimelineBlockInput } from '@femtoslot/shared';
+import { parseChangeoverModel } from '@femtoslot/shared';
+import type { EntityManager } from 'typeorm';
 import { notFound } from '../../lib/errors/app-error';
 import { ChangeoverPair } from '../instruments/changeover-pair.entity';
 import { Configuration } from '../instruments/configuration.entity';
 import { Instrument } from '../instruments/instrument.entity';
+import { modelOf, type InstrumentTimeline, type ReferenceCache, type ReferenceData } from '../instruments/reference-data';
 import { occupyingStatuses, TimelineBlock } from './timeline-block.entity';
 
-export interface InstrumentTimeline {
-  instrument: Instrument;
-  configurations: Map<string, Configuration>;
-  model: ChangeoverModel;
-}
+export type { InstrumentTimeline } from '../instruments/reference-data';
 
 /** The source state a booking leaves the laser in; a scanned range is represented by its midpoint. */
 export function stateOf(block: Pick<TimelineBlock, 'configurationId' | 'targetMinNm' | 'targetMaxNm'>, configurations: Map<string, Configuration>): SourceState | null {
@@ -19,39 +17,88 @@ export function stateOf(block: Pick<TimelineBlock, 'configurationId' | 'targetMi
   return { configurationKey: c.key, nm: (block.targetMinNm + block.targetMaxNm) / 2 };
 }
 
-/** The changeover model of one instrument, assembled from its rows (editable by staff) into the engine's shape. */
-export async function loadInstrumentTimeline(m: EntityManager, instrumentId: string, { lock = false } = {}): Promise<InstrumentTimeline> {
+// Serialises every write to this instrument's timeline: two requests cannot both pass the gap check.
+const LOCK_INSTRUMENT = `SELECT r.revision::text AS revision FROM instruments i CROSS JOIN reference_revision r WHERE i.id = $1 FOR UPDATE OF i`;
+
+/**
+ * The instrument's configurations and changeover model from the per-process reference cache. With `lock`, the row
+ * lock on the instrument and the revision check are one statement.
+ */
+export async function timelineOf(reference: ReferenceCache, m: EntityManager, instrumentId: string, { lock = false } = {}): Promise<{ timeline: InstrumentTimeline; reference: ReferenceData }> {
+  let revision: string | undefined;
   if (lock) {
-    // Serialises every write to this instrument's timeline: two requests cannot both pass the gap check.
-    await m.query('SELECT id FROM instruments WHERE id = $1 FOR UPDATE', [instrumentId]);
+    const rows: { revision: string }[] = await m.query(LOCK_INSTRUMENT, [instrumentId]);
+    if (rows.length === 0) throw notFound('Instrument');
+    revision = rows[0]!.revision;
   }
+  const data = await reference.get(m, revision);
+  const timeline = data.timelines.get(instrumentId);
+  if (!timeline || !timeline.instrument.active) throw notFound('Instrument');
+  return { timeline, reference: data };
+}
+
+/** The same, read straight from the tables (for batch work that does not hold a reference cache). */
+export async function loadInstrumentTimeline(m: EntityManager, instrumentId: string, { lock = false } = {}): Promise<InstrumentTimeline> {
+  if (lock) await m.query('SELECT id FROM instruments WHERE id = $1 FOR UPDATE', [instrumentId]);
   const instrument = await m.getRepository(Instrument).findOne({ where: { id: instrumentId, active: true } });
   if (!instrument) throw notFound('Instrument');
   const configs = await m.getRepository(Configuration).find({ where: { instrumentId } });
-  const configurations = new Map(configs.map((c) => [c.id, c]));
   const pairs = await m.getRepository(ChangeoverPair).find({ where: { instrumentId } });
-  const byConfiguration: Record<string, number> = {};
-  for (const c of configs) if (c.retuneMinutesPerNm !== null) byConfiguration[c.key] = c.retuneMinutesPerNm;
-  const model: ChangeoverModel = {
-    pairs: pairs.flatMap((p) => {
-      const from = configurations.get(p.fromConfigurationId);
-      const to = configurations.get(p.toConfigurationId);
-      return from && to ? [{ from: from.key, to: to.key, baseMinutes: p.baseMinutes }] : [];
-    }),
-    retuneMinutesPerNm: instrument.retuneMinutesPerNm,
-    retuneMinutesPerNmByConfiguration: byConfiguration,
-    warmupAfterMaintenanceMinutes: instrument.warmupAfterMaintenanceMinutes,
-    pulseCheckMinutes: instrument.pulseCheckMinutes,
-    defaultBaseMinutes: instrument.defaultChangeoverMinutes,
-  };
-  return { instrument, configurations, model };
+  const model = modelOf(instrument, configs, pairs);
+  return { instrument, configurations: new Map(configs.map((c) => [c.id, c])), model, parsedModel: parseChangeoverModel(model) };
+}
+
+const BLOCK_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
+  'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'created_by', 'alternatives',
+  'rebooked_as', 'displaced_by', 'decided_by', 'decided_at', 'cancelled_by', 'cancelled_at', 'sequence', 'created_at', 'updated_at'];
+/** The block's columns for a raw select; numeric wavelengths as float8 so they arrive as numbers. */
+const blockColumns = (alias: string) => BLOCK_COLUMN_NAMES
+  .map((c) => (c.startsWith('target_') ? `${alias}.${c}::float8 AS ${c}` : `${alias}.${c}`)).join(', ');
+
+type BlockRow = Record<string, unknown>;
+
+/** A row of `SELECT ${blockColumns(…)}` as the entity, without TypeORM's hydration (hot read paths). */
+function blockOf(r: BlockRow): TimelineBlock {
+  return Object.assign(new TimelineBlock(), {
+    id: r.id, instrumentId: r.instrument_id, kind: r.kind, status: r.status, startsAt: r.starts_at, endsAt: r.ends_at,
+    configurationId: r.configuration_id, targetMinNm: r.target_min_nm, targetMaxNm: r.target_max_nm, accountId: r.account_id,
+    userId: r.user_id, organisationId: r.organisation_id, purpose: r.purpose, reason: r.reason, declineReason: r.decline_reason,
+    cancellationFeePercent: r.cancellation_fee_percent, createdBy: r.created_by, alternatives: r.alternatives, rebookedAs: r.rebooked_as,
+    displacedBy: r.displaced_by, decidedBy: r.decided_by, decidedAt: r.decided_at, cancelledBy: r.cancelled_by, cancelledAt: r.cancelled_at,
+    sequence: r.sequence, createdAt: r.created_at, updatedAt: r.updated_at,
+  } as Partial<TimelineBlock>);
+}
+
+async function selectBlocks(m: EntityManager, from: Date, to: Date, instrumentId: string | undefined, withNames: boolean): Promise<BlockRow[]> {
+  const names = withNames ? ', u.name AS user_name, a.name AS account_name' : '';
+  const joins = withNames ? 'LEFT JOIN users u ON u.id = b.user_id LEFT JOIN accounts a ON a.id = b.account_id' : '';
+  return m.query(
+    `SELECT ${blockColumns('b')}${names} FROM timeline_blocks b ${joins}
+      WHERE b.starts_at < $2 AND b.ends_at > $1 AND b.status = ANY($3::text[]) ${instrumentId ? 'AND b.instrument_id = $4' : ''}
+      ORDER BY b.starts_at, b.id`,
+    instrumentId ? [from, to, [...occupyingStatuses], instrumentId] : [from, to, [...occupyingStatuses]],
+  );
+}
+
+/** Blocks that occupy instruments and overlap [from, to), oldest first; one instrument or all. */
+export async function occupyingBlocks(m: EntityManager, from: Date, to: Date, instrumentId?: string): Promise<TimelineBlock[]> {
+  return (await selectBlocks(m, from, to, instrumentId, false)).map(blockOf);
+}
+
+/** The same with the owner's and the account's names, joined in the one statement (the calendar's week query). */
+export async function occupyingBlocksNamed(m: EntityManager, from: Date, to: Date, instrumentId?: string) {
+  const rows = await selectBlocks(m, from, to, instrumentId, true);
+  const users = new Map<string, string>();
+  const accounts = new Map<string, string>();
+  for (const r of rows) {
+    if (r.user_id && r.user_name) users.set(r.user_id as string, r.user_name as string);
+    if (r.account_id && r.account_name) accounts.set(r.account_id as string, r.account_name as string);
+  }
+  return { blocks: rows.map(blockOf), users, accounts };
 }
 
 export async function activeBlocksBetween(m: EntityManager, instrumentId: string, from: Date, to: Date): Promise<TimelineBlock[]> {
-  return m.getRepository(TimelineBlock).find({
-    where: { instrumentId, status: In([...occupyingStatuses]), startsAt: LessThan(to), endsAt: MoreThan(from) },
-    order: { startsAt: 'ASC' },
-  });
+  return occupyingBlocks(m, from, to, instrumentId);
 }
 
 export function toEngineBlocks(blocks: TimelineBlock[], configurations: Map<string, Configuration>): TimelineBlockInput[] {

@@ -15,7 +15,7 @@ describe('booking length across DST (IANA tz database: New York falls back 2026-
     const { instrument, configs } = await makeInstrument(t);
     const me = await makeBooker(t);
     const owner = { id: me.user.id, role: me.user.role, organisationId: me.org.id, email: me.user.email, name: me.user.name };
-    const run = (day: number) => evaluateBooking(t.api.ctx.db.manager, {
+    const run = (day: number) => evaluateBooking(t.api.ctx.db.manager, t.api.ctx.reference, {
       instrumentId: instrument.id, configurationId: configs.fundamental!.id, accountId: me.account.id, owner, target: { targetNm: 800 },
       startsAt: zonedToUtc({ year: 2026, month: 11, day, hour: 0, minute: 30 }, NY), endsAt: zonedToUtc({ year: 2026, month: 11, day, hour: 12, minute: 30 }, NY),
     }, { lock: false, now: new Date('2026-10-20T12:00:00Z') });
