@@ -3,6 +3,7 @@ import { createSecretKey, type KeyObject } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 import type { Role } from '@femtoslot/shared';
 import type { AppContext } from '../context';
+import { preparedQuery } from '../../db/prepared';
 
 export const SESSION_COOKIE = 'femtoslot_session';
 
@@ -61,7 +62,7 @@ export function authenticate(ctx: AppContext) {
       if (userId && /^[0-9a-f-]{36}$/i.test(userId)) {
         // Every signed-in request runs this: one plain statement, no entity hydration, and the reference revision with
         // it so that a route that reads the cached reference data needs no statement of its own for that.
-        const rows: { id: string; role: Role; organisation_id: string; email: string; name: string; revision: string }[] = await ctx.db.query(
+        const rows: { id: string; role: Role; organisation_id: string; email: string; name: string; revision: string }[] = await preparedQuery(ctx.db.manager, 'session-user',
           `SELECT u.id, u.role, u.organisation_id, u.email, u.name, r.revision::text AS revision
              FROM users u CROSS JOIN reference_revision r WHERE u.id = $1 AND u.active`, [userId]);
         const user = rows[0];

@@ -1,6 +1,7 @@
 import type { SourceState, TimelineBlockInput } from '@femtoslot/shared';
 import { parseChangeoverModel } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
+import { preparedQuery } from '../../db/prepared';
 import { notFound } from '../../lib/errors/app-error';
 import { ChangeoverPair } from '../instruments/changeover-pair.entity';
 import { Configuration } from '../instruments/configuration.entity';
@@ -72,7 +73,7 @@ function blockOf(r: BlockRow): TimelineBlock {
 async function selectBlocks(m: EntityManager, from: Date, to: Date, instrumentId: string | undefined, withNames: boolean): Promise<BlockRow[]> {
   const names = withNames ? ', u.name AS user_name, a.name AS account_name' : '';
   const joins = withNames ? 'LEFT JOIN users u ON u.id = b.user_id LEFT JOIN accounts a ON a.id = b.account_id' : '';
-  return m.query(
+  return preparedQuery(m, `blocks${withNames ? '-named' : ''}${instrumentId ? '-instrument' : ''}`,
     `SELECT ${blockColumns('b')}${names} FROM timeline_blocks b ${joins}
       WHERE b.starts_at < $2 AND b.ends_at > $1 AND b.status = ANY($3::text[]) ${instrumentId ? 'AND b.instrument_id = $4' : ''}
       ORDER BY b.starts_at, b.id`,
