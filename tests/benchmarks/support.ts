@@ -41,9 +41,12 @@ export function printTable(figures: Figure[]): string {
   return [line(head), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
 }
 
+// Foreign-key checks run inside an INSERT (no round trip of their own) but pg_stat_statements lists them.
+const RI_CHECK = `'SELECT 1 FROM ONLY %FOR KEY SHARE OF x'`;
+
 /**
- * SQL statements the database ran while `fn` ran (pg_stat_statements, preloaded by tools/bench.ts): every statement of
- * the API, background workers (mail, pg-boss upkeep) included, BEGIN/COMMIT counted. NaN when the extension is missing.
+ * SQL statements the database ran while `fn` ran (pg_stat_statements, preloaded by tools/bench.ts): every statement the
+ * API sent, background workers (mail, pg-boss upkeep) included, BEGIN/COMMIT counted, foreign-key checks not. NaN when the extension is missing.
  */
 export async function countStatements<T>(databaseUrl: string, fn: () => Promise<T>): Promise<{ out: T; statements: number }> {
   const c = new pg.Client({ connectionString: databaseUrl });
@@ -57,7 +60,13 @@ export async function countStatements<T>(databaseUrl: string, fn: () => Promise<
     const out = await fn();
     if (!available) return { out, statements: NaN };
     const { rows } = await c.query(`SELECT coalesce(sum(calls), 0)::int AS n FROM pg_stat_statements
-      WHERE dbid = (SELECT oid FROM pg_database WHERE datname = current_database()) AND query NOT LIKE '%pg_stat_statements%'`);
+      WHERE dbid = (SELECT oid FROM pg_database WHERE datname = current_database()) AND query NOT LIKE '%pg_stat_statements%' AND query NOT LIKE ${RI_CHECK}`);
+    if (process.env.BENCH_STATEMENTS) {
+      // BENCH_STATEMENTS=1 lists what ran, most frequent first (for the profiles in docs/benchmarks.md).
+      const top = await c.query(`SELECT calls, left(regexp_replace(query, '\\s+', ' ', 'g'), 140) AS q FROM pg_stat_statements
+        WHERE dbid = (SELECT oid FROM pg_database WHERE datname = current_database()) AND query NOT LIKE '%pg_stat_statements%' AND query NOT LIKE ${RI_CHECK} ORDER BY calls DESC LIMIT 25`);
+      for (const r of top.rows) console.log(`[bench] ${String(r.calls).padStart(7)}  ${r.q}`);
+    }
     return { out, statements: rows[0].n as number };
   } finally { await c.end(); }
 }

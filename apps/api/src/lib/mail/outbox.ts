@@ -92,15 +92,16 @@ export class Outbox {
 
   /** The message row, then its delivery job together with `alsoJobs` (the caller's other jobs) in one statement. */
   async enqueue(manager: EntityManager, to: string, mail: RenderedMail, attachments: OutboxAttachment[] = [], alsoJobs: OutboxJob[] = []): Promise<string> {
-    const row = await manager.getRepository(OutboxMessage).save({
-      toAddress: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html, template: mail.template, attachments,
-    });
+    const [row] = (await manager.query(
+      `INSERT INTO outbox_messages (to_address, subject, text_body, html_body, template, attachments) VALUES ($1, $2, $3, $4, $5, $6::jsonb) RETURNING id`,
+      [to, mail.subject, mail.text, mail.html, mail.template, JSON.stringify(attachments)],
+    )) as { id: string }[];
     for (const j of alsoJobs) await this.ensureQueue(j.queue);
     await this.boss.insert([
       { name: QUEUE, data: { id: row.id }, retryLimit: this.options.retryLimit, retryDelay: this.options.retryDelaySeconds, retryBackoff: true },
       ...alsoJobs.map(toInsert),
     ], { db: this.dbFor(manager) });
-    return row.id;
+    return row!.id;
   }
 
   private async deliver(id: string): Promise<void> {

@@ -1,5 +1,4 @@
 import type { EntityManager } from 'typeorm';
-import { AuditEvent } from './audit-event.entity';
 
 export interface AuditEntry {
   actorUserId: string | null;
@@ -11,10 +10,10 @@ export interface AuditEntry {
   requestId?: string | null;
 }
 
+/** One plain INSERT: every write route records an event, so this stays off TypeORM's entity machinery. */
 export async function recordAudit(manager: EntityManager, e: AuditEntry): Promise<void> {
-  const row = manager.getRepository(AuditEvent).create({
-    actorUserId: e.actorUserId, action: e.action, entityType: e.entityType, entityId: e.entityId,
-    before: e.before ?? null, after: e.after ?? null, requestId: e.requestId ?? null,
-  });
-  await manager.getRepository(AuditEvent).save(row);
+  await manager.query(
+    `INSERT INTO audit_events (actor_user_id, action, entity_type, entity_id, before, after, request_id) VALUES ($1, $2, $3, $4, $5::jsonb, $6::jsonb, $7)`,
+    [e.actorUserId, e.action, e.entityType, e.entityId, e.before ? JSON.stringify(e.before) : null, e.after ? JSON.stringify(e.after) : null, e.requestId ?? null],
+  );
 }

@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { AppContext } from '../../lib/context';
 import type { OutboxJob } from '../../lib/mail/outbox';
+import type { ReferenceData } from '../instruments/reference-data';
 import { buildCalendar } from '../../lib/calendar/ics';
 import { layout, type RenderedMail } from '../../lib/mail/templates';
 import { User } from '../users/user.entity';
@@ -44,11 +45,13 @@ export async function queueBookingMail(
   ctx: AppContext, m: EntityManager, kind: BookingMailKind, b: TimelineBlock,
   extra: {
     reason?: string | null; feePercent?: number | null; recipient?: { id: string; email: string; name: string };
+    /** The reference data the caller already holds (saves the revision read). */
+    reference?: ReferenceData;
     /** Jobs to queue with the mail's own, in one statement. */
     jobs?: OutboxJob[];
   } = {},
 ): Promise<void> {
-  const reference = await ctx.reference.get(m);
+  const reference = extra.reference ?? await ctx.reference.get(m);
   const facility = reference.facility;
   const user = extra.recipient?.id === b.userId ? extra.recipient : await m.getRepository(User).findOneByOrFail({ id: b.userId! });
   const cfg = reference.configurations.get(b.configurationId!);

@@ -13,7 +13,7 @@ import { auditSnapshot, canSeeDetail, facilityWideRoles, toBookingDto, toMainten
 import { evaluateBooking, throwFirst } from './booking-evaluation';
 import { loadLookups, lookupsOf } from './lookups';
 import { TimelineBlock } from './timeline-block.entity';
-import { occupyingBlocksNamed, stateOf } from './timeline.repository';
+import { insertBooking, occupyingBlocksNamed, stateOf } from './timeline.repository';
 
 const REMINDER_QUEUE = 'booking-reminder';
 
@@ -102,15 +102,15 @@ export function bookingsService(ctx: AppContext) {
         }
       }
       const t = input.target;
-      const saved = await m.getRepository(TimelineBlock).save(m.getRepository(TimelineBlock).create({
-        instrumentId: input.instrumentId, kind: 'booking', status: e.status, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
+      const saved = await insertBooking(m, {
+        instrumentId: input.instrumentId, status: e.status, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
         configurationId: input.configurationId, targetMinNm: 'targetNm' in t ? t.targetNm : t.minNm, targetMaxNm: 'targetNm' in t ? t.targetNm : t.maxNm,
         accountId: input.accountId, userId: actor.id, organisationId: actor.organisationId, purpose: input.purpose, createdBy: actor.id,
         decidedBy: e.status === 'approved' ? actor.id : null, decidedAt: e.status === 'approved' ? new Date() : null,
-      }));
+      });
       if (rebookOf) await m.getRepository(TimelineBlock).update({ id: rebookOf.id }, { rebookedAs: saved.id });
       await recordAudit(m, { actorUserId: actor.id, action: `booking.${e.status}`, entityType: 'booking', entityId: saved.id, after: auditSnapshot(saved), requestId });
-      await queueBookingMail(ctx, m, e.status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, jobs: reminderJobs(saved) });
+      await queueBookingMail(ctx, m, e.status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, reference: e.reference, jobs: reminderJobs(saved) });
       // Every name the answer shows is already at hand: no lookups.
       const look = lookupsOf(e.reference, new Map([[actor.id, actor.name]]), new Map(e.account ? [[e.account.id, e.account.name]] : []));
       return {

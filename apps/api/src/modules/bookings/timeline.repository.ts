@@ -98,6 +98,23 @@ export async function occupyingBlocksNamed(m: EntityManager, from: Date, to: Dat
   return { blocks: rows.map(blockOf), users, accounts };
 }
 
+export interface NewBooking {
+  instrumentId: string; status: 'requested' | 'approved'; startsAt: Date; endsAt: Date; configurationId: string; targetMinNm: number; targetMaxNm: number;
+  accountId: string; userId: string; organisationId: string; purpose: string; createdBy: string; decidedBy: string | null; decidedAt: Date | null;
+}
+
+/** The booking row, returned as the entity; an overlap fails here on the exclusion constraint (23P01 → 409). */
+export async function insertBooking(m: EntityManager, v: NewBooking): Promise<TimelineBlock> {
+  const rows: BlockRow[] = await m.query(
+    `INSERT INTO timeline_blocks (instrument_id, kind, status, starts_at, ends_at, configuration_id, target_min_nm, target_max_nm, account_id, user_id,
+       organisation_id, purpose, created_by, decided_by, decided_at)
+     VALUES ($1, 'booking', $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14) RETURNING ${blockColumns('timeline_blocks')}`,
+    [v.instrumentId, v.status, v.startsAt, v.endsAt, v.configurationId, v.targetMinNm, v.targetMaxNm, v.accountId, v.userId, v.organisationId,
+      v.purpose, v.createdBy, v.decidedBy, v.decidedAt],
+  );
+  return blockOf(rows[0]!);
+}
+
 export async function activeBlocksBetween(m: EntityManager, instrumentId: string, from: Date, to: Date): Promise<TimelineBlock[]> {
   return occupyingBlocks(m, from, to, instrumentId);
 }
