@@ -49,3 +49,7 @@ import { StripeEvent } from '../modules/webhooks/stripe-event.entity';
 // In-memory reference data (issue 7): one revision bumped by triggers on the tables every process caches.
 import { ReferenceRevision1764979200000 } from './migrations/1764979200000-reference-revision';
 (migrations as unknown as (new () => object)[]).push(ReferenceRevision1764979200000);
+
+// A password reset ends the sessions issued before it.
+import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
+(migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);

@@ -31,9 +31,9 @@ function keyFor(secret: string): KeyObject {
   return k;
 }
 
-export function issueSession(ctx: AppContext, res: Response, user: { id: string }): void {
+export function issueSession(ctx: AppContext, res: Response, user: { id: string; sessionEpoch: number }): void {
   const ttlSeconds = Math.round(ctx.env.SESSION_TTL_HOURS * 3600);
-  const token = jwt.sign({}, keyFor(ctx.env.JWT_SECRET), { subject: user.id, expiresIn: ttlSeconds, algorithm: 'HS256', issuer: 'femtoslot' });
+  const token = jwt.sign({ sep: user.sessionEpoch }, keyFor(ctx.env.JWT_SECRET), { subject: user.id, expiresIn: ttlSeconds, algorithm: 'HS256', issuer: 'femtoslot' });
   res.cookie(SESSION_COOKIE, token, {
     httpOnly: true,
     sameSite: 'lax',
@@ -53,9 +53,11 @@ export function authenticate(ctx: AppContext) {
     const token = req.cookies?.[SESSION_COOKIE];
     if (typeof token === 'string' && token.length > 0) {
       let userId: string | undefined;
+      let epoch = 0;
       try {
         const payload = jwt.verify(token, keyFor(ctx.env.JWT_SECRET), { algorithms: ['HS256'], issuer: 'femtoslot' });
         userId = typeof payload === 'object' ? payload.sub : undefined;
+        epoch = typeof payload === 'object' && Number.isInteger(payload.sep) ? (payload.sep as number) : 0;
       } catch {
         userId = undefined;
       }
@@ -64,7 +66,7 @@ export function authenticate(ctx: AppContext) {
         // it so that a route that reads the cached reference data needs no statement of its own for that.
         const rows: { id: string; role: Role; organisation_id: string; email: string; name: string; revision: string }[] = await preparedQuery(ctx.db.manager, 'session-user',
           `SELECT u.id, u.role, u.organisation_id, u.email, u.name, r.revision::text AS revision
-             FROM users u CROSS JOIN reference_revision r WHERE u.id = $1 AND u.active`, [userId]);
+             FROM users u CROSS JOIN reference_revision r WHERE u.id = $1 AND u.active AND u.session_epoch = $2`, [userId, epoch]);
         const user = rows[0];
         if (user) {
           req.user = { id: user.id, role: user.role, organisationId: user.organisation_id, email: user.email, name: user.name };

@@ -57,7 +57,10 @@ export function authService(ctx: AppContext) {
       if (!first) throw invalidToken();
       const user = await m.getRepository(User).findOne({ where: { id: first.user_id } });
       if (!user || !user.active) throw invalidToken();
-      await m.getRepository(User).update({ id: user.id }, { passwordHash: hash });
+      // A reset ends every session issued before it (a stolen cookie stops working); accepting an invitation has none to end.
+      const epoch = purpose === 'password_reset' ? user.sessionEpoch + 1 : user.sessionEpoch;
+      await m.getRepository(User).update({ id: user.id }, { passwordHash: hash, sessionEpoch: epoch });
+      user.sessionEpoch = epoch;
       // Any other outstanding links for this purpose stop working once one has been used.
       await m.query(`UPDATE auth_tokens SET used_at = now() WHERE user_id = $1 AND purpose = $2 AND used_at IS NULL`, [user.id, purpose]);
       await recordAudit(m, { actorUserId: user.id, action: purpose === 'invitation' ? 'invitation.accepted' : 'password.reset', entityType: 'user', entityId: user.id, requestId });

@@ -15,5 +15,7 @@ export class User {
   @Column({ name: 'password_hash', type: 'text', nullable: true }) passwordHash: string | null;
   @Column({ type: 'boolean', default: true }) active: boolean;
   @Column({ name: 'calendar_token', type: 'text', nullable: true }) calendarToken: string | null;
+  /** Carried in the session token; a password reset raises it, which ends every older session. */
+  @Column({ name: 'session_epoch', type: 'integer', default: 0 }) sessionEpoch: number;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
 }

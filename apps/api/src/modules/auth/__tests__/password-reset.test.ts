@@ -30,6 +30,25 @@ describe('password reset by e-mail', () => {
     expect(row.sentAt).not.toBeNull();
   });
 
+  it('when the password is reset, then every session signed in before it ends and a fresh sign-in works', async () => {
+    const { users, password } = await makePeople(t, ['member']);
+    const email = users.member!.email;
+    const before = await t.signIn(email, password);
+    expect((await before.get('/api/auth/me')).status).toBe(200);
+    await t.http().post('/api/auth/forgot-password').send({ email });
+    const token = linkToken(await waitForMail(email, { subjectIncludes: 'Reset' }));
+    const reset = await t.http().post('/api/auth/reset-password').send({ token, password: 'a fresh passphrase' });
+    expect(reset.status).toBe(200);
+
+    // The cookie from before the reset is still a validly signed, unexpired token: only the epoch ends it.
+    expect((await before.get('/api/auth/me')).status).toBe(401);
+    const after = await t.signIn(email, 'a fresh passphrase');
+    expect((await after.get('/api/auth/me')).status).toBe(200);
+    // The reset answer signs the user in too, with the new epoch.
+    const cookie = String(reset.headers['set-cookie']).split(';')[0]!;
+    expect((await t.http().get('/api/auth/me').set('cookie', cookie)).status).toBe(200);
+  });
+
   it('when the e-mail has no account, then the answer is the same 202 and no mail is queued', async () => {
     const r = await t.http().post('/api/auth/forgot-password').send({ email: 'ghost-user@example.test' });
     expect(r.status).toBe(202);
