@@ -4,34 +4,35 @@ import { recordAudit } from '../audit/audit.service';
 import { notFound } from '../../lib/errors/app-error';
 import { currentUser, param, type RouteDef } from '../../lib/auth/routes';
 import { Configuration } from '../instruments/configuration.entity';
-import { Instrument } from '../instruments/instrument.entity';
-import { FacilitySettings } from './facility-settings.entity';
 
 export function facilityRoutes(ctx: AppContext): RouteDef[] {
   return [
+    // The calendar's first requests: served from the reference cache, no statement beyond the session read.
     {
       method: 'get', path: '/facility', access: 'signed_in',
-      handler: async (_req, res) => {
-        const f = await ctx.db.getRepository(FacilitySettings).findOne({ where: { id: 1 } });
-        if (!f) throw notFound('Facility settings');
+      handler: async (req, res) => {
+        const { facility: f } = await ctx.reference.get(ctx.db.manager, req.referenceRevision);
         res.json({ facility: { name: f.name, timeZone: f.timeZone, currency: f.currency, policies: f.policies } });
       },
     },
     {
       method: 'get', path: '/instruments', access: 'signed_in',
-      handler: async (_req, res) => {
-        const rows = await ctx.db.getRepository(Instrument).find({ where: { active: true }, order: { kind: 'DESC', name: 'ASC' } });
+      handler: async (req, res) => {
+        const { timelines } = await ctx.reference.get(ctx.db.manager, req.referenceRevision);
+        const rows = [...timelines.values()].map((t) => t.instrument).filter((i) => i.active)
+          .sort((a, b) => (a.kind === b.kind ? (a.name < b.name ? -1 : a.name > b.name ? 1 : 0) : a.kind < b.kind ? 1 : -1));
         res.json({ instruments: rows.map(({ createdAt: _c, ...i }) => i) });
       },
     },
     {
       method: 'get', path: '/configurations', access: 'signed_in',
       handler: async (req, res) => {
-        const instrumentId = typeof req.query.instrumentId === 'string' ? req.query.instrumentId : undefined;
-        const rows = await ctx.db.getRepository(Configuration).find({
-          where: { active: true, ...(instrumentId && /^[0-9a-f-]{36}$/i.test(instrumentId) ? { instrumentId } : {}) },
-          order: { minNm: 'ASC' },
-        });
+        const asked = typeof req.query.instrumentId === 'string' ? req.query.instrumentId : undefined;
+        const instrumentId = asked && /^[0-9a-f-]{36}$/i.test(asked) ? asked : undefined;
+        const { configurations } = await ctx.reference.get(ctx.db.manager, req.referenceRevision);
+        const rows = [...configurations.values()]
+          .filter((c) => c.active && (!instrumentId || c.instrumentId === instrumentId))
+          .sort((a, b) => a.minNm - b.minNm);
         res.json({ configurations: rows });
       },
     },
