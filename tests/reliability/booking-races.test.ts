@@ -41,14 +41,21 @@ async function overlappingPairs(instrumentId: string): Promise<number> {
   return n;
 }
 
+// `npm run test:soak` raises the counts (and the test timeouts) for a longer run.
+const SOAK = process.env.FEMTOSLOT_SOAK === '1';
+const OVERLAPPING = SOAK ? 1000 : 200;
+const ADJACENT_ROUNDS = SOAK ? 200 : 25;
+// Rounds 12 h apart, or 7 h for the soak's 200 so the last one stays inside the 60-day booking horizon.
+const ROUND_HOURS = SOAK ? 7 : 12;
+
 describe('bookings across two API processes', () => {
-  it('when 200 requests for overlapping slots on one instrument race over both processes, then exactly one is 201, the other 199 are 409, and no two blocks overlap', async () => {
+  it(`when ${OVERLAPPING} requests for overlapping slots on one instrument race over both processes, then exactly one is 201, the other ${OVERLAPPING - 1} are 409, and no two blocks overlap`, async () => {
     const { instrument, configs } = await makeInstrument(w.fixtureApi(procs[0]!.url));
     const people = await bookers(20);
     const start = hoursFromNow(30);
     const started = Date.now();
-    // Starts 0–105 min apart, each 2 h long: every pair of the 200 overlaps.
-    const results = await Promise.all(Array.from({ length: 200 }, (_, i) => {
+    // Starts 0–105 min apart, each 2 h long: every pair overlaps.
+    const results = await Promise.all(Array.from({ length: OVERLAPPING }, (_, i) => {
       const who = people[i % people.length]!;
       const s = plusMinutes(start, (i % 8) * 15);
       return who.session.request(procs[i % 2]!.url, 'POST', '/api/bookings', body(instrument.id, configs.fundamental.id, who.accountId, s, plusHours(s, 2), 800));
@@ -56,8 +63,8 @@ describe('bookings across two API processes', () => {
     const elapsedMs = Date.now() - started;
     const byStatus = results.reduce<Record<number, number>>((acc, r) => ({ ...acc, [r.status]: (acc[r.status] ?? 0) + 1 }), {});
     const codes = [...new Set(results.filter((r) => r.status === 409).map((r) => r.body?.error?.code))];
-    console.log(`[reliability] 200 overlapping requests over 2 processes: ${JSON.stringify(byStatus)} in ${elapsedMs} ms; 409 codes ${codes.join(', ')}`);
-    expect(byStatus).toEqual({ 201: 1, 409: 199 });
+    console.log(`[reliability] ${OVERLAPPING} overlapping requests over 2 processes: ${JSON.stringify(byStatus)} in ${elapsedMs} ms; 409 codes ${codes.join(', ')}`);
+    expect(byStatus).toEqual({ 201: 1, 409: OVERLAPPING - 1 });
     expect(codes.every((c) => c === 'overlap' || c === 'changeover_gap')).toBe(true);
     expect(await overlappingPairs(instrument.id)).toBe(0);
     const [{ n }] = await w.db.query(`SELECT count(*)::int AS n FROM timeline_blocks WHERE instrument_id = $1`, [instrument.id]);
@@ -65,16 +72,16 @@ describe('bookings across two API processes', () => {
     expect(procs.every((p) => p.alive())).toBe(true);
   });
 
-  it('when adjacent requests whose changeover does not fit race on different processes for 25 rounds, then never both are accepted and every accepted neighbour pair keeps the engine’s changeover gap', async () => {
+  it(`when adjacent requests whose changeover does not fit race on different processes for ${ADJACENT_ROUNDS} rounds, then never both are accepted and every accepted neighbour pair keeps the engine’s changeover gap`, async () => {
     const { instrument, configs } = await makeInstrument(w.fixtureApi(procs[0]!.url));
     const [a, b] = await bookers(2);
     const start = hoursFromNow(30);
-    const rounds = 25;
+    const rounds = ADJACENT_ROUNDS;
     let oneWon = 0;
     let noneWon = 0;
     const started = Date.now();
     for (let round = 0; round < rounds; round++) {
-      const s = plusHours(start, round * 12);
+      const s = plusHours(start, round * ROUND_HOURS);
       // DFG until s+3h, SHG from s+3h: back to back, where the demo model needs 55 min + 5 min pulse check.
       const [pa, pb] = round % 2 === 0 ? [procs[0]!, procs[1]!] : [procs[1]!, procs[0]!];
       const [ra, rb] = await Promise.all([

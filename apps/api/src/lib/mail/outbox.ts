@@ -6,6 +6,7 @@ import { OutboxMessage, type OutboxAttachment } from './outbox-message.entity';
 import type { RenderedMail } from './templates';
 
 const QUEUE = 'outbox-deliver';
+const DELIVERY_BATCH = 10;
 const JOB_RETRIES = { retryLimit: 5, retryDelay: 30, retryBackoff: true } as const;
 
 /** A background job to queue in the same transaction as the change it follows. */
@@ -45,8 +46,15 @@ export class Outbox {
     this.started = true;
     if (!work) return;
     // Several messages per poll: after an outage the backlog drains in seconds; deliver() skips what was already sent.
-    await this.boss.work<{ id: string }>(QUEUE, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1, batchSize: 10 }, async (jobs) => {
-      for (const job of jobs) await this.deliver(job.data.id);
+    const worker: string = await this.boss.work<{ id: string }>(QUEUE, { pollingIntervalSeconds: this.options.pollingIntervalSeconds ?? 1, batchSize: DELIVERY_BATCH }, async (jobs) => {
+      // The batch's messages go out side by side; only the ones that failed are handed back for a retry (pg-boss then
+      // completes the rest, which are still active). One bad address no longer holds up, or re-queues, the others.
+      const results = await Promise.allSettled(jobs.map((job) => this.deliver(job.data.id)));
+      const failed = jobs.filter((_, i) => results[i]!.status === 'rejected').map((j) => j.id);
+      // The error itself is on the outbox row (last_error).
+      if (failed.length > 0) await this.boss.fail(QUEUE, failed);
+      // A full batch means a backlog (after an outage, a busy hour): fetch the next one now, not after the interval.
+      if (jobs.length === DELIVERY_BATCH) this.boss.notifyWorker(worker);
     });
     await this.requeueStranded();
   }

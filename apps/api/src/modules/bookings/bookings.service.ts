@@ -13,7 +13,7 @@ import { auditSnapshot, canSeeDetail, facilityWideRoles, toBookingDto, toMainten
 import { evaluateBooking, throwFirst } from './booking-evaluation';
 import { loadLookups, lookupsOf } from './lookups';
 import { TimelineBlock } from './timeline-block.entity';
-import { insertBooking, occupyingBlocksNamed, stateOf } from './timeline.repository';
+import { insertBooking, occupyingBlocksNamed, oneAtATimePerInstrument, stateOf } from './timeline.repository';
 
 const REMINDER_QUEUE = 'booking-reminder';
 
@@ -91,7 +91,7 @@ export function bookingsService(ctx: AppContext) {
   }
 
   async function create(actor: SessionUser, input: CreateBooking, requestId?: string) {
-    return db.transaction(async (m) => {
+    return oneAtATimePerInstrument(input.instrumentId, () => db.transaction(async (m) => {
       const e = await evaluateBooking(m, ctx.reference, { ...input, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt), owner: actor }, { lock: true });
       throwFirst(e.problems);
       let rebookOf: TimelineBlock | null = null;
@@ -119,7 +119,7 @@ export function bookingsService(ctx: AppContext) {
         derived: e.dto.derived,
         onTable: e.dto.onTable,
       };
-    });
+    }));
   }
 
   async function get(viewer: SessionUser, id: string) {

@@ -38,6 +38,28 @@ export async function timelineOf(reference: ReferenceCache, m: EntityManager, in
   return { timeline, reference: data };
 }
 
+const instrumentQueues = new Map<string, Promise<void>>();
+
+/**
+ * Runs `fn` after every earlier call for the same instrument in this process has finished. The row lock still
+ * serialises across processes; this keeps a burst for one instrument (a slot everyone wants) queued in memory instead
+ * of holding every pool connection while it waits on that lock, which starved other requests into 503s (soak test).
+ */
+export async function oneAtATimePerInstrument<T>(instrumentId: string, fn: () => Promise<T>): Promise<T> {
+  const before = instrumentQueues.get(instrumentId) ?? Promise.resolve();
+  let release!: () => void;
+  const done = new Promise<void>((resolve) => { release = resolve; });
+  const tail = before.then(() => done);
+  instrumentQueues.set(instrumentId, tail);
+  await before;
+  try {
+    return await fn();
+  } finally {
+    release();
+    if (instrumentQueues.get(instrumentId) === tail) instrumentQueues.delete(instrumentId);
+  }
+}
+
 /** The same, read straight from the tables (for batch work that does not hold a reference cache). */
 export async function loadInstrumentTimeline(m: EntityManager, instrumentId: string, { lock = false } = {}): Promise<InstrumentTimeline> {
   if (lock) await m.query('SELECT id FROM instruments WHERE id = $1 FOR UPDATE', [instrumentId]);
