@@ -46,7 +46,7 @@ async function main(): Promise<number> {
     const appDataDir = path.join(dataRoot, 'bench');
     mail = await step(`mail capture (SMTP ${smtpPort}, web ${mailWebPort})`, () => startMailCapture(smtpPort, mailWebPort, path.join(appDataDir, 'mail')));
     const { runBenchmarks } = await import('../tests/benchmarks/run-benchmarks');
-    await runBenchmarks({ databaseUrl, smtpPort, dataDir: appDataDir, apiPort, stripePort, chromiumPath: chromium });
+    await runBenchmarks({ databaseUrl, smtpPort, dataDir: appDataDir, apiPort, stripePort, chromiumPath: chromium, pgDataDir: pgData });
     await stop();
     console.log(`[femtoslot] bench total ${((Date.now() - started) / 1000).toFixed(0)} s`);
     return 0;

@@ -25,6 +25,8 @@ export interface BenchInputs {
   apiPort: number;
   stripePort: number;
   chromiumPath: string;
+  /** The bench cluster's data folder, to count its CPU time. */
+  pgDataDir?: string;
 }
 
 const timed = async <T>(label: string, fn: () => Promise<T>): Promise<T> => {
@@ -83,8 +85,8 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
     api = await timed('API child process', () => startApiChild(apiEnv, o.apiPort));
     const apiUrl = api.url;
     const cookie = await signIn(api.url, world.booker.email, BENCH_PASSWORD);
-    if (wanted('1')) add(await timed('1 booking creation (API vs raw SQL)', () => benchBookingCreation({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
-    if (wanted('2')) add(await timed('2 week query (API vs raw SQL)', () => benchWeekQuery({ apiUrl, cookie, databaseUrl: o.databaseUrl, world })));
+    if (wanted('1')) add(await timed('1 booking creation (API vs raw SQL)', () => benchBookingCreation({ apiUrl, apiPid: api!.pid, pgDataDir: o.pgDataDir, cookie, databaseUrl: o.databaseUrl, world })));
+    if (wanted('2')) add(await timed('2 week query (API vs raw SQL)', () => benchWeekQuery({ apiUrl, apiPid: api!.pid, pgDataDir: o.pgDataDir, cookie, databaseUrl: o.databaseUrl, world })));
     // A fresh API process for the close, so that its peak memory is the close's and not the load runs' heap.
     await api.stop();
     const fresh = api = await timed('fresh API child process for the close', () => startApiChild(apiEnv, o.apiPort));

@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
@@ -122,6 +122,46 @@ export async function signIn(url: string, email: string, password: string): Prom
   const cookie = r.headers.getSetCookie().map((c) => c.split(';')[0]!).find((c) => c.startsWith('femtoslot_session='));
   if (!cookie) throw new Error('sign-in gave no session cookie');
   return cookie;
+}
+
+const TICKS_PER_SECOND = 100; // USER_HZ on Linux (sysconf(_SC_CLK_TCK)); 100 on every mainstream kernel build
+
+/** CPU seconds (user + system) a process has used, from /proc/<pid>/stat; 0 when it is gone. */
+function cpuOfPid(pid: number): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / TICKS_PER_SECOND; // utime, stime
+  } catch { return 0; }
+}
+
+/** The bench cluster's postmaster and every backend it forked (other clusters on the machine are left out). */
+function clusterPids(pgDataDir: string): number[] {
+  let postmaster: number;
+  try { postmaster = Number(readFileSync(path.join(pgDataDir, 'postmaster.pid'), 'utf8').split('\n')[0]); } catch { return []; }
+  const pids = [postmaster];
+  for (const entry of readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const stat = readFileSync(`/proc/${entry}/stat`, 'utf8');
+      if (Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) === postmaster) pids.push(Number(entry));
+    } catch { /* gone */ }
+  }
+  return pids;
+}
+
+/**
+ * CPU seconds the API process and the bench PostgreSQL cluster spent while `fn` ran. Backends that exit during the
+ * run take their time with them, so the PostgreSQL figure is a lower bound (the pools keep theirs open).
+ */
+export async function measureCpu<T>(apiPid: number, pgDataDir: string | undefined, fn: () => Promise<T>): Promise<{ out: T; apiSeconds: number; pgSeconds: number }> {
+  const pgBefore = new Map((pgDataDir ? clusterPids(pgDataDir) : []).map((p) => [p, cpuOfPid(p)]));
+  const apiBefore = cpuOfPid(apiPid);
+  const out = await fn();
+  const apiSeconds = cpuOfPid(apiPid) - apiBefore;
+  let pgSeconds = 0;
+  for (const p of pgDataDir ? clusterPids(pgDataDir) : []) pgSeconds += cpuOfPid(p) - (pgBefore.get(p) ?? 0);
+  return { out, apiSeconds, pgSeconds: pgDataDir ? pgSeconds : NaN };
 }
 
 /** Resident memory of a process in MB from /proc/<pid>/status (VmRSS now, VmHWM the peak since start or reset). */

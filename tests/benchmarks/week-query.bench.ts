@@ -6,7 +6,7 @@
 import autocannon from 'autocannon';
 import pg from 'pg';
 import type { BenchWorld } from './bench-world';
-import { countStatements, percentile, type Figure } from './support';
+import { countStatements, measureCpu, percentile, type Figure } from './support';
 
 const SECONDS = Number(process.env.BENCH_QUERY_SECONDS ?? 8);
 const IN_FLIGHT = 10;
@@ -31,7 +31,7 @@ async function raw(databaseUrl: string, week: BenchWorld['queryWeek']) {
   }));
   const rate = latencies.length / ((performance.now() - started) / 1000);
   await pool.end();
-  return { rate, p95: percentile(latencies, 95), rows };
+  return { count: latencies.length, rate, p95: percentile(latencies, 95), rows };
 }
 
 async function api(url: string, cookie: string, week: BenchWorld['queryWeek'], seconds: number) {
@@ -46,18 +46,19 @@ async function api(url: string, cookie: string, week: BenchWorld['queryWeek'], s
   return { count: latencies.length, rate: latencies.length / result.duration, p95: percentile(latencies, 95), p50: percentile(latencies, 50), non2xx };
 }
 
-export async function benchWeekQuery(o: { apiUrl: string; cookie: string; databaseUrl: string; world: BenchWorld }): Promise<{ figures: Figure[]; detail: string }> {
+export async function benchWeekQuery(o: { apiUrl: string; apiPid: number; pgDataDir?: string; cookie: string; databaseUrl: string; world: BenchWorld }): Promise<{ figures: Figure[]; detail: string }> {
   const week = o.world.queryWeek;
   const probe = await fetch(`${o.apiUrl}/api/bookings?from=${encodeURIComponent(week.from)}&to=${encodeURIComponent(week.to)}&instrumentId=${week.instrumentId}`, { headers: { cookie: o.cookie } });
   const body = (await probe.json()) as { bookings?: unknown[]; changeovers?: unknown[] };
   if (probe.status !== 200) throw new Error(`week query: ${probe.status} ${JSON.stringify(body).slice(0, 300)}`);
   await api(o.apiUrl, o.cookie, week, 2);
-  const { out: a, statements } = await countStatements(o.databaseUrl, () => api(o.apiUrl, o.cookie, week, SECONDS));
-  const r = await raw(o.databaseUrl, week);
+  const { out: { out: a, statements }, apiSeconds, pgSeconds } = await measureCpu(o.apiPid, o.pgDataDir, () => countStatements(o.databaseUrl, () => api(o.apiUrl, o.cookie, week, SECONDS)));
+  const { out: r, pgSeconds: rawPgSeconds } = await measureCpu(process.pid, o.pgDataDir, () => raw(o.databaseUrl, week));
   return {
     figures: [
       { section: '2', name: 'week query p95 through the API', value: a.p95, unit: 'ms', target: { max: 20 }, note: `${a.rate.toFixed(0)} req/s, p50 ${a.p50.toFixed(1)} ms, ${body.bookings?.length ?? 0} bookings + ${body.changeovers?.length ?? 0} bands, ${a.non2xx} non-200` },
       { section: '2', name: 'SQL statements per week query', value: statements / Math.max(1, a.count), unit: '', note: 'pg_stat_statements; background workers included' },
+      { section: '2', name: 'CPU per week query: API process / PostgreSQL', value: (apiSeconds * 1000) / Math.max(1, a.count), unit: 'ms', note: `PostgreSQL ${((pgSeconds * 1000) / Math.max(1, a.count)).toFixed(2)} ms; raw select: PostgreSQL ${((rawPgSeconds * 1000) / Math.max(1, r.count)).toFixed(2)} ms (/proc)` },
       { section: '2', name: 'week query p95 raw SQL', value: r.p95, unit: 'ms', note: `${r.rate.toFixed(0)} queries/s, ${r.rows} rows` },
       { section: '2', name: 'week query API rate / raw rate', value: a.rate / r.rate, unit: '×', target: { min: 0.5 } },
     ],
