@@ -1,5 +1,5 @@
 import type { BookingDto, MaintenanceDto } from '@femtoslot/shared';
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { toast } from 'sonner';
 import { Button } from '../../../components/ui/button';
@@ -17,6 +17,7 @@ import { CalendarKey } from '../../../features/bookings/components/calendar-key'
 import { NeedsRebookingPanel } from '../../../features/bookings/components/needs-rebooking-panel';
 import { PendingRequests } from '../../../features/bookings/components/pending-requests';
 import { cancellationPolicyText, defaultCancellationWindows } from '../../../features/bookings/lib/cancellation-fee';
+import { weekShownAt } from '../../../features/bookings/lib/calendar-week';
 import { FeedUrlCard } from '../../../features/calendar-feed/components/feed-url-card';
 import { useUpdateMaintenance } from '../../../features/maintenance/api/update-maintenance';
 import { displacedToast } from '../../../features/maintenance/components/displaced-toast';
@@ -46,7 +47,11 @@ export function CalendarPage() {
   const updateMaintenance = useUpdateMaintenance();
 
   const instrumentId = pickedInstrumentId ?? data.defaultInstrumentId;
-  const calendar = useCalendar(range && instrumentId ? { ...range, instrumentId } : null);
+  const facilityZoneKnown = data.facility.data?.timeZone;
+  // until the grid reports its range, the week it is about to show (the one the route loader asked for)
+  const openingWeek = useMemo(() => (facilityZoneKnown ? weekShownAt(new Date(), facilityZoneKnown) : null), [facilityZoneKnown]);
+  const shownRange = range ?? openingWeek;
+  const calendar = useCalendar(shownRange && instrumentId ? { ...shownRange, instrumentId } : null);
   const weekShown = calendar.data !== undefined;
   useEffect(() => (weekShown ? preloadCalendarFormsWhenIdle() : undefined), [weekShown]);
 
