@@ -131,7 +131,9 @@ export function CalendarPage() {
           <div onPointerDownCapture={preloadCalendarForms}>
             <BeamTimeCalendar
               timeZone={shownZone}
-              calendar={calendar.data}
+              // drawn once the configuration names are in (they are asked for alongside the week and come back
+              // sooner): drawing with stand-in names first would redraw every event a moment later
+              calendar={data.configurationsLoading ? undefined : calendar.data}
               configurationName={data.configurationName}
               canEditMaintenance={isStaff}
               onRangeChange={setRange}

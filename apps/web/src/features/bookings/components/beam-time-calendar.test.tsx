@@ -1,9 +1,10 @@
 import type { BookingDto, CalendarDto } from '@femtoslot/shared';
+import { formatRange } from '@fullcalendar/core';
 import { act } from 'react';
 import { type Root, createRoot } from 'react-dom/client';
 import { afterEach, describe, expect, test, vi } from 'vitest';
 import { weekShownAt } from '../lib/calendar-week';
-import { BeamTimeCalendar, type BeamTimeCalendarProps } from './beam-time-calendar';
+import { BeamTimeCalendar, type BeamTimeCalendarProps, eventTimeText } from './beam-time-calendar';
 
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
@@ -73,8 +74,21 @@ describe('beam-time grid', () => {
     await act(async () => root!.render(<BeamTimeCalendar {...shared} onBookingClick={second} />));
     const event = document.querySelector<HTMLElement>('[data-testid="booking-event"]')!;
     expect(event.textContent).toContain('Busy · OPA signal');
+    // 14:00–16:00 UTC is 10:00–12:00 in New York in June (UTC−4, IANA tz database)
+    expect(event.querySelector('.fs-event-time')?.textContent).toBe('10:00 - 12:00');
     await act(async () => event.click());
     expect(first).not.toHaveBeenCalled();
     expect(second).toHaveBeenCalledWith(booking);
+  });
+
+  test.each([
+    ['within a day', '2026-06-10T10:00:00Z', '2026-06-10T12:30:00Z'],
+    ['across midnight', '2026-06-10T22:00:00Z', '2026-06-11T02:00:00Z'],
+    ['from midnight', '2026-06-10T00:00:00Z', '2026-06-10T00:30:00Z'],
+    ['of no length', '2026-06-10T09:15:00Z', '2026-06-10T09:15:00Z'],
+  ])('when an event runs %s, then its time reads as FullCalendar writes the same format', (_, start, end) => {
+    const options = { hour: '2-digit', minute: '2-digit', hour12: false, timeZone: 'UTC', locale: 'en' } as const;
+    const arg = { start: { marker: new Date(start) }, end: { marker: new Date(end) }, localeCodes: ['en'], defaultSeparator: ' - ' };
+    expect(eventTimeText(arg)).toBe(formatRange(start, end, options));
   });
 });

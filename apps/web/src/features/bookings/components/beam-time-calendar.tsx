@@ -31,6 +31,33 @@ export interface BeamTimeCalendarProps {
 
 const plugins = [timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin];
 const hourMinute = { hour: '2-digit', minute: '2-digit', hour12: false } as const;
+
+// FullCalendar formats a range's end with a new Intl.DateTimeFormat for every event; one kept per locale gives
+// the same text. Markers are wall times coded as UTC, hence timeZone 'UTC', as FullCalendar's own formatter does.
+const clocks = new Map<string, Intl.DateTimeFormat>();
+function clockText(marker: Date, localeCodes: string[]): string {
+  const key = localeCodes.join(',');
+  let clock = clocks.get(key);
+  if (!clock) {
+    clock = new Intl.DateTimeFormat(localeCodes, { ...hourMinute, timeZone: 'UTC' });
+    clocks.set(key, clock);
+  }
+  return clock.format(marker);
+}
+
+interface EventTimeArg {
+  start: { marker: Date };
+  end?: { marker: Date } | null;
+  localeCodes: string[];
+  defaultSeparator: string;
+}
+
+export function eventTimeText(arg: EventTimeArg): string {
+  const start = clockText(arg.start.marker, arg.localeCodes);
+  if (!arg.end) return start;
+  const end = clockText(arg.end.marker, arg.localeCodes);
+  return start === end ? start : `${start}${arg.defaultSeparator}${end}`;
+}
 const headerToolbar = { left: 'prev,next today', center: 'title', right: 'timeGridWeek,timeGridDay,dayGridMonth' };
 const buttonText = { today: 'Today', week: 'Week', day: 'Day', month: 'Month' };
 const dayHeaderFormat = { weekday: 'short', day: 'numeric', month: 'numeric', omitCommas: true } as const;
@@ -133,7 +160,7 @@ export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
         slotDuration="00:30:00"
         scrollTime="07:00:00"
         slotLabelFormat={hourMinute}
-        eventTimeFormat={hourMinute}
+        eventTimeFormat={eventTimeText}
         dayHeaderFormat={dayHeaderFormat}
         selectable
         selectMirror
