@@ -2,12 +2,12 @@ import type { CalendarDto, MaintenanceDto, BookingDto } from '@femtoslot/shared'
 import type { DatesSetArg, DateSelectArg, EventClickArg, EventContentArg, EventDropArg, EventMountArg } from '@fullcalendar/core';
 import dayGridPlugin from '@fullcalendar/daygrid';
 import interactionPlugin, { type EventResizeDoneArg } from '@fullcalendar/interaction';
-import luxonPlugin from '@fullcalendar/luxon3';
 import FullCalendar from '@fullcalendar/react';
 import timeGridPlugin from '@fullcalendar/timegrid';
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { type CalendarItem, type GridOptions, eventDataAttributes, toGridEvents } from '../lib/calendar-events';
 import { firstDayOfWeek } from '../lib/calendar-week';
+import { intlTimeZonePlugin } from '../lib/intl-time-zone-plugin';
 
 export interface MaintenanceChange {
   maintenance: MaintenanceDto;
@@ -29,7 +29,7 @@ export interface BeamTimeCalendarProps {
   onMaintenanceChange: (change: MaintenanceChange) => void;
 }
 
-const plugins = [timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin];
+const plugins = [timeGridPlugin, dayGridPlugin, interactionPlugin, intlTimeZonePlugin];
 const hourMinute = { hour: '2-digit', minute: '2-digit', hour12: false } as const;
 
 // FullCalendar formats a range's end with a new Intl.DateTimeFormat for every event; one kept per locale gives
