@@ -1,6 +1,7 @@
-import { Component, type ReactNode, Suspense, lazy } from 'react';
+import { type ReactNode, Suspense } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
+import { PartLoadBoundary, lazyPart } from '../../../components/ui/lazy-part';
 import { Notice } from '../../../components/ui/notice';
 import { Spinner } from '../../../components/ui/spinner';
 import type { RequestFormProps } from '../../../features/bookings/components/request-form';
@@ -11,15 +12,8 @@ import type { MaintenanceFormProps } from '../../../features/maintenance/compone
 const loadRequestForm = () => import('../../../features/bookings/components/request-form');
 const loadMaintenanceForm = () => import('../../../features/maintenance/components/maintenance-form');
 
-/** A form's script could not be fetched (offline, or a deploy replaced the files): the page itself is fine. */
-class FormLoadError extends Error {}
-
-const failedLoad = (cause: unknown): never => {
-  throw new FormLoadError(cause instanceof Error ? cause.message : String(cause));
-};
-
-const LazyRequestForm = lazy(() => loadRequestForm().then((m) => ({ default: m.RequestForm }), failedLoad));
-const LazyMaintenanceForm = lazy(() => loadMaintenanceForm().then((m) => ({ default: m.MaintenanceForm }), failedLoad));
+const LazyRequestForm = lazyPart(() => loadRequestForm().then((m) => m.RequestForm));
+const LazyMaintenanceForm = lazyPart(() => loadMaintenanceForm().then((m) => m.MaintenanceForm));
 
 /** Fetches both forms ahead of need; the browser keeps the module, so a later open does not wait. */
 export function preloadCalendarForms(): void {
@@ -55,40 +49,28 @@ function FormLoading(props: ShellProps) {
   );
 }
 
-/** Catches only a failed fetch of the form's script; any other error still reaches the page's error screen. */
-class FormLoadBoundary extends Component<ShellProps & { children: ReactNode }, { error: unknown }> {
-  state = { error: null as unknown };
-
-  static getDerivedStateFromError(error: unknown) {
-    return { error };
-  }
-
-  render() {
-    const { error } = this.state;
-    if (error === null) return this.props.children;
-    if (!(error instanceof FormLoadError)) throw error;
-    return (
-      <Dialog open onClose={this.props.onClose} title={this.props.title} size={this.props.size} testId="form-load-failed">
-        <Notice tone="danger" title="The form could not be loaded">
-          Femtoslot could not fetch part of the page. Check your connection and reload.
-        </Notice>
-        <div className="mt-4 flex justify-end gap-2">
-          <Button variant="secondary" onClick={this.props.onClose}>
-            Close
-          </Button>
-          <Button onClick={() => window.location.reload()}>Reload</Button>
-        </div>
-      </Dialog>
-    );
-  }
+function FormLoadFailed(props: ShellProps) {
+  return (
+    <Dialog open onClose={props.onClose} title={props.title} size={props.size} testId="form-load-failed">
+      <Notice tone="danger" title="The form could not be loaded">
+        Femtoslot could not fetch part of the page. Check your connection and reload.
+      </Notice>
+      <div className="mt-4 flex justify-end gap-2">
+        <Button variant="secondary" onClick={props.onClose}>
+          Close
+        </Button>
+        <Button onClick={() => window.location.reload()}>Reload</Button>
+      </div>
+    </Dialog>
+  );
 }
 
 function LazyForm(props: ShellProps & { children: ReactNode }) {
   const { children, ...shell } = props;
   return (
-    <FormLoadBoundary {...shell}>
+    <PartLoadBoundary failed={<FormLoadFailed {...shell} />}>
       <Suspense fallback={<FormLoading {...shell} />}>{children}</Suspense>
-    </FormLoadBoundary>
+    </PartLoadBoundary>
   );
 }
 
