@@ -15,12 +15,14 @@ import { defaultInstrumentId } from './default-instrument';
  */
 export async function prefetchFirstWeek(queryClient: QueryClient, now = new Date()): Promise<void> {
   try {
-    const user = await queryClient.ensureQueryData(currentUserQueryOptions());
-    if (!user || !canReach(user.role, 'calendar')) return;
-    const [facility, instruments] = await Promise.all([
+    // together rather than after the session check: signed out, all three say 401 and the guard sends the
+    // visitor to sign-in, as it would have anyway
+    const [user, facility, instruments] = await Promise.all([
+      queryClient.ensureQueryData(currentUserQueryOptions()),
       queryClient.ensureQueryData(facilityQueryOptions()),
       queryClient.ensureQueryData(instrumentsQueryOptions()),
     ]);
+    if (!user || !canReach(user.role, 'calendar')) return;
     const instrumentId = defaultInstrumentId(instruments);
     const week = instrumentId ? [queryClient.prefetchQuery(calendarQueryOptions({ ...weekShownAt(now, facility.timeZone), instrumentId }))] : [];
     await Promise.all([...week, ...instruments.map((i) => queryClient.prefetchQuery(configurationsQueryOptions(i.id)))]);
