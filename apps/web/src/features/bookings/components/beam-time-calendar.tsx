@@ -62,8 +62,9 @@ const headerToolbar = { left: 'prev,next today', center: 'title', right: 'timeGr
 const buttonText = { today: 'Today', week: 'Week', day: 'Day', month: 'Month' };
 const dayHeaderFormat = { weekday: 'short', day: 'numeric', month: 'numeric', omitCommas: true } as const;
 
-function itemOf(arg: { event: { extendedProps: Record<string, unknown> } }): CalendarItem {
-  return arg.event.extendedProps.item as CalendarItem;
+/** The booking, window or band behind an event; undefined for the mirror FullCalendar draws while a range is dragged. */
+function itemOf(arg: { event: { extendedProps: Record<string, unknown> } }): CalendarItem | undefined {
+  return arg.event.extendedProps.item as CalendarItem | undefined;
 }
 
 /** FullCalendar's own (Preact) element factory, handed to content hooks as their second argument. */
@@ -73,6 +74,7 @@ type CreateElement = (type: string, props: { className: string } | null, ...chil
 // per event and re-renders the whole grid each time one changes, which made a 300-event week slow to appear.
 function eventInner(arg: EventContentArg, h: CreateElement) {
   const item = itemOf(arg);
+  if (!item) return true;
   const span = (className: string, text: string) => h('span', { className }, text);
   if (item.kind === 'changeover') return span('fs-changeover-label', arg.event.title);
   if (item.kind === 'maintenance') {
@@ -90,6 +92,7 @@ function eventInner(arg: EventContentArg, h: CreateElement) {
 
 function mountEvent(arg: EventMountArg) {
   const item = itemOf(arg);
+  if (!item) return;
   for (const [key, value] of Object.entries(eventDataAttributes(item))) arg.el.dataset[key] = value;
   if (item.kind === 'booking') {
     const b = item.booking;
@@ -119,7 +122,7 @@ export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
   const handlers = useMemo(() => {
     const onMaintenanceMoved = (arg: EventDropArg | EventResizeDoneArg) => {
       const item = itemOf(arg);
-      if (item.kind !== 'maintenance' || !arg.event.start || !arg.event.end) return arg.revert();
+      if (item?.kind !== 'maintenance' || !arg.event.start || !arg.event.end) return arg.revert();
       latest.current.onMaintenanceChange({
         maintenance: item.maintenance,
         startsAt: new Date(arg.event.startStr).toISOString(),
@@ -136,8 +139,8 @@ export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
       },
       eventClick: (arg: EventClickArg) => {
         const item = itemOf(arg);
-        if (item.kind === 'booking') latest.current.onBookingClick(item.booking);
-        if (item.kind === 'maintenance') latest.current.onMaintenanceClick(item.maintenance);
+        if (item?.kind === 'booking') latest.current.onBookingClick(item.booking);
+        if (item?.kind === 'maintenance') latest.current.onMaintenanceClick(item.maintenance);
       },
       eventDrop: onMaintenanceMoved,
       eventResize: onMaintenanceMoved,
