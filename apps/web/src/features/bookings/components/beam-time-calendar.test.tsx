@@ -59,6 +59,18 @@ describe('beam-time grid', () => {
     expect(onRangeChange).toHaveBeenCalledWith({ from, to });
   });
 
+  test('when the zone is switched to the viewer\'s, then the grid reports that zone\'s week', async () => {
+    vi.useFakeTimers({ toFake: ['Date'] });
+    vi.setSystemTime(new Date('2026-06-10T15:00:00Z'));
+    const onRangeChange = vi.fn();
+    const shared = props({ onRangeChange });
+    await render(shared);
+    await act(async () => root!.render(<BeamTimeCalendar {...shared} timeZone="Asia/Tokyo" />));
+    expect(document.querySelector('[data-testid="calendar"]')?.getAttribute('data-time-zone')).toBe('Asia/Tokyo');
+    // Tokyo is UTC+9 all year (IANA tz database): Monday 8 June 00:00 there is 7 June 15:00 UTC
+    expect(onRangeChange).toHaveBeenLastCalledWith({ from: '2026-06-07T15:00:00.000Z', to: '2026-06-14T15:00:00.000Z' });
+  });
+
   test('when the page hands new handlers without new data, then a click reaches the newest one', async () => {
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(new Date('2026-06-10T15:00:00Z'));
