@@ -8,18 +8,19 @@ import './index.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
-import { AppProvider } from './app/provider';
+import { AppProvider, createQueryClient } from './app/provider';
 import { createAppRouter } from './app/router';
 import { applyTheme, storedTheme } from './lib/theme';
 
 // before the first paint, so a remembered dark theme does not flash light
 applyTheme(storedTheme());
 
-const router = createAppRouter();
+const queryClient = createQueryClient();
+const router = createAppRouter(queryClient);
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <AppProvider>
+    <AppProvider queryClient={queryClient}>
       <RouterProvider router={router} />
     </AppProvider>
   </StrictMode>,

@@ -10,7 +10,7 @@ function shouldRetry(failureCount: number, error: unknown): boolean {
   return failureCount < 2;
 }
 
-function createQueryClient(): QueryClient {
+export function createQueryClient(): QueryClient {
   const client: QueryClient = new QueryClient({
     // a 401 anywhere means the session ended: mark signed out so the guard sends them to sign-in
     queryCache: new QueryCache({
@@ -40,8 +40,9 @@ function ThemedToaster() {
   return <Toaster position="bottom-right" richColors closeButton theme={theme} />;
 }
 
-export function AppProvider({ children }: { children: ReactNode }) {
-  const [queryClient] = useState(createQueryClient);
+/** `queryClient` is the one the router's loaders prefetch into; without it the provider makes its own. */
+export function AppProvider({ children, queryClient: given }: { children: ReactNode; queryClient?: QueryClient }) {
+  const [queryClient] = useState(() => given ?? createQueryClient());
   return (
     <ThemeProvider>
       <QueryClientProvider client={queryClient}>

@@ -1,18 +1,22 @@
+import type { QueryClient } from '@tanstack/react-query';
 import { Navigate, type RouteObject, createBrowserRouter } from 'react-router-dom';
 import { PageLoading } from '../components/ui/spinner';
 import type { Area } from '../config/navigation';
 import { defaultSignedInPath, paths } from '../config/paths';
-import { RequireAuth, RequireRole } from '../lib/auth';
+import { RequireAuth, RequireRole, currentUserQueryOptions } from '../lib/auth';
+import { prefetchFirstWeek } from './routes/calendar/calendar-prefetch';
 import { RouteErrorPage } from './routes/errors/route-error';
 
 type LazyPage = NonNullable<RouteObject['lazy']>;
 
 /** A signed-in area: the role guard from config/navigation wraps the lazily loaded page. */
-function areaRoute(area: Area, path: string, lazy: LazyPage): RouteObject {
-  return { element: <RequireRole area={area} />, children: [{ path, lazy }] };
+function areaRoute(area: Area, path: string, lazy: LazyPage, loader?: () => null): RouteObject {
+  return { element: <RequireRole area={area} />, children: [{ path, lazy, loader }] };
 }
 
-export const routes: RouteObject[] = [
+// Loaders run while the page's script is still downloading; they only start queries (never awaited, so no page
+// waits on them) and the components read the same cache.
+export const createRoutes = (queryClient: QueryClient): RouteObject[] => [
   {
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <PageLoading />,
@@ -35,14 +39,24 @@ export const routes: RouteObject[] = [
       },
       {
         element: <RequireAuth />,
+        loader: () => {
+          void queryClient.prefetchQuery(currentUserQueryOptions());
+          return null;
+        },
         children: [
           {
             lazy: async () => ({ Component: (await import('./routes/app-root')).AppRoot }),
             children: [
               { index: true, element: <Navigate to={defaultSignedInPath} replace /> },
-              areaRoute('calendar', paths.calendar, async () => ({
-                Component: (await import('./routes/calendar/calendar')).CalendarPage,
-              })),
+              areaRoute(
+                'calendar',
+                paths.calendar,
+                async () => ({ Component: (await import('./routes/calendar/calendar')).CalendarPage }),
+                () => {
+                  void prefetchFirstWeek(queryClient);
+                  return null;
+                },
+              ),
               areaRoute('calendar', paths.planDay, async () => ({
                 Component: (await import('./routes/calendar/plan-day')).PlanDayPage,
               })),
@@ -76,4 +90,4 @@ export const routes: RouteObject[] = [
   },
 ];
 
-export const createAppRouter = () => createBrowserRouter(routes);
+export const createAppRouter = (queryClient: QueryClient) => createBrowserRouter(createRoutes(queryClient));

@@ -2,8 +2,8 @@ import { act } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider, createMemoryRouter } from 'react-router-dom';
 import { expect, test, vi } from 'vitest';
-import { AppProvider } from './provider';
-import { routes } from './router';
+import { AppProvider, createQueryClient } from './provider';
+import { createRoutes } from './router';
 
 (globalThis as any).IS_REACT_ACT_ENVIRONMENT = true;
 HTMLDialogElement.prototype.showModal = function () { this.open = true; };
@@ -31,9 +31,10 @@ function mockApi(me: unknown) {
 }
 
 async function render(path: string) {
-  const router = createMemoryRouter(routes, { initialEntries: [path] });
+  const queryClient = createQueryClient();
+  const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
   const el = document.createElement('div'); document.body.innerHTML = ''; document.body.append(el);
-  await act(async () => { createRoot(el).render(<AppProvider><RouterProvider router={router} /></AppProvider>); });
+  await act(async () => { createRoot(el).render(<AppProvider queryClient={queryClient}><RouterProvider router={router} /></AppProvider>); });
   for (let i = 0; i < 30; i++) await act(async () => { await new Promise((r) => setTimeout(r, 20)); });
   return { el, router };
 }

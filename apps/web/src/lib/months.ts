@@ -1,4 +1,4 @@
-import { wallTimeAt } from '@femtoslot/shared';
+import { wallTimeAt } from '@femtoslot/shared/time/zoned-time';
 
 const pad = (n: number) => String(n).padStart(2, '0');
 

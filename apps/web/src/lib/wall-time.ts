@@ -1,4 +1,4 @@
-import { type ResolvedWallTime, resolveWallTime, wallTimeAt } from '@femtoslot/shared';
+import { type ResolvedWallTime, resolveWallTime, wallTimeAt } from '@femtoslot/shared/time/zoned-time';
 
 /** A wall-clock date and time as the form holds them: 'YYYY-MM-DD' and 'HH:MM'. */
 export interface WallFields {

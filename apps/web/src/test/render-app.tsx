@@ -2,8 +2,8 @@ import { act } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider, createMemoryRouter } from 'react-router-dom';
 import { vi } from 'vitest';
-import { AppProvider } from '../app/provider';
-import { routes } from '../app/router';
+import { AppProvider, createQueryClient } from '../app/provider';
+import { createRoutes } from '../app/router';
 
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 HTMLDialogElement.prototype.showModal = function showModal(this: HTMLDialogElement) {
@@ -35,13 +35,14 @@ export async function tick(times = 10, ms = 20) {
 }
 
 export async function renderApp(path: string) {
-  const router = createMemoryRouter(routes, { initialEntries: [path] });
+  const queryClient = createQueryClient();
+  const router = createMemoryRouter(createRoutes(queryClient), { initialEntries: [path] });
   const el = document.createElement('div');
   document.body.innerHTML = '';
   document.body.append(el);
   await act(async () => {
     createRoot(el).render(
-      <AppProvider>
+      <AppProvider queryClient={queryClient}>
         <RouterProvider router={router} />
       </AppProvider>,
     );

@@ -1,8 +1,8 @@
 import { z } from 'zod';
+import { type OutputKind, outputKinds } from './output-kinds';
 
-export const outputKinds = ['fundamental', 'shg', 'opa_signal', 'opa_idler', 'dfg'] as const;
+export { type OutputKind, outputKinds };
 export const outputKindSchema = z.enum(outputKinds);
-export type OutputKind = z.infer<typeof outputKindSchema>;
 
 export const rateClasses = ['standard', 'dfg'] as const;
 export const rateClassSchema = z.enum(rateClasses);

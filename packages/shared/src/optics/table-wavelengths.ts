@@ -1,18 +1,13 @@
 import { z } from 'zod';
-import { outputKindSchema, type OutputKind } from '../facility/facility.schemas';
+import { outputKindSchema } from '../facility/facility.schemas';
+import type { OutputKind } from '../facility/output-kinds';
 import { EngineError, parseEngineInput } from '../units/engine-error';
 import { DEFAULT_PUMP_NM, idlerFromPumpAndSignal, opaForDfgTarget, signalFromPumpAndIdler } from './mixing';
 
 export const tableRoles = ['pump_residual', 'fundamental', 'shg', 'signal', 'idler', 'dfg'] as const;
 export type TableRole = (typeof tableRoles)[number];
 
-export const outputKindLabels: Record<OutputKind, string> = {
-  fundamental: 'Fundamental',
-  shg: 'SHG',
-  opa_signal: 'OPA signal',
-  opa_idler: 'OPA idler',
-  dfg: 'DFG mid-IR',
-};
+export { outputKindLabels } from '../facility/output-kinds';
 
 export interface TableWavelength {
   role: TableRole;

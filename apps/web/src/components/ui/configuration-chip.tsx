@@ -1,4 +1,4 @@
-import { type OutputKind, outputKinds } from '@femtoslot/shared';
+import { type OutputKind, outputKinds } from '@femtoslot/shared/facility/output-kinds';
 import { configurationColour } from '../../lib/configuration-colour';
 
 export const isOutputKind = (value: string): value is OutputKind => (outputKinds as readonly string[]).includes(value);

@@ -1,4 +1,4 @@
-import { outputKinds } from '@femtoslot/shared';
+import { outputKinds } from '@femtoslot/shared/facility/output-kinds';
 import { configurationColour } from '../../lib/configuration-colour';
 
 /** Key to the configuration colours: spectral for visible, labelled false colour for infrared. */

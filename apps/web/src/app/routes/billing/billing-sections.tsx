@@ -1,4 +1,4 @@
-import { localDate } from '@femtoslot/shared';
+import { localDate } from '@femtoslot/shared/time/zoned-time';
 import { type ReactNode, useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';

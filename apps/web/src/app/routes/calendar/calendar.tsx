@@ -1,5 +1,5 @@
 import type { BookingDto, MaintenanceDto } from '@femtoslot/shared';
-import { useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { toast } from 'sonner';
 import { Button } from '../../../components/ui/button';
@@ -16,17 +16,21 @@ import { BookingDetails } from '../../../features/bookings/components/booking-de
 import { CalendarKey } from '../../../features/bookings/components/calendar-key';
 import { NeedsRebookingPanel } from '../../../features/bookings/components/needs-rebooking-panel';
 import { PendingRequests } from '../../../features/bookings/components/pending-requests';
-import { RequestForm } from '../../../features/bookings/components/request-form';
 import { cancellationPolicyText, defaultCancellationWindows } from '../../../features/bookings/lib/cancellation-fee';
+import { weekShownAt } from '../../../features/bookings/lib/calendar-week';
 import { FeedUrlCard } from '../../../features/calendar-feed/components/feed-url-card';
 import { useUpdateMaintenance } from '../../../features/maintenance/api/update-maintenance';
-import { MaintenanceForm, displacedToast } from '../../../features/maintenance/components/maintenance-form';
+import { displacedToast } from '../../../features/maintenance/components/displaced-toast';
 import { useSignedInUser } from '../../../lib/auth';
 import { viewerTimeZone } from '../../../lib/wall-time';
+import { MaintenanceFormDialog, RequestFormDialog, preloadCalendarForms, preloadCalendarFormsWhenIdle } from './calendar-forms';
 import { NotOnGrid, SelectionChoice, ZoneToggle } from './calendar-parts';
 import { useBeamTimeData } from './use-beam-time-data';
 
 type Slot = { startsAt: string; endsAt: string };
+
+// a pointer on a button or the grid usually means a form is next: start fetching it before the click lands
+const formIntent = { onPointerEnter: preloadCalendarForms, onFocus: preloadCalendarForms };
 
 export function CalendarPage() {
   const user = useSignedInUser();
@@ -43,7 +47,13 @@ export function CalendarPage() {
   const updateMaintenance = useUpdateMaintenance();
 
   const instrumentId = pickedInstrumentId ?? data.defaultInstrumentId;
-  const calendar = useCalendar(range && instrumentId ? { ...range, instrumentId } : null);
+  const facilityZoneKnown = data.facility.data?.timeZone;
+  // until the grid reports its range, the week it is about to show (the one the route loader asked for)
+  const openingWeek = useMemo(() => (facilityZoneKnown ? weekShownAt(new Date(), facilityZoneKnown) : null), [facilityZoneKnown]);
+  const shownRange = range ?? openingWeek;
+  const calendar = useCalendar(shownRange && instrumentId ? { ...shownRange, instrumentId } : null);
+  const weekShown = calendar.data !== undefined;
+  useEffect(() => (weekShown ? preloadCalendarFormsWhenIdle() : undefined), [weekShown]);
 
   if (data.facility.isPending || data.instruments.isPending) return <PageLoading label="Loading the calendar" />;
   if (data.facility.isError || data.instruments.isError) {
@@ -86,11 +96,11 @@ export function CalendarPage() {
               </Link>
             )}
             {isStaff && (
-              <Button variant="secondary" data-testid="new-maintenance-button" onClick={() => setMaintenance({ initial: {}, existing: null })}>
+              <Button variant="secondary" data-testid="new-maintenance-button" {...formIntent} onClick={() => setMaintenance({ initial: {}, existing: null })}>
                 Block maintenance
               </Button>
             )}
-            <Button data-testid="new-request-button" onClick={() => setRequest({})}>
+            <Button data-testid="new-request-button" {...formIntent} onClick={() => setRequest({})}>
               Request beam time
             </Button>
           </>
@@ -118,17 +128,21 @@ export function CalendarPage() {
             {calendar.isFetching && <span className="pb-2 text-xs text-ink-muted">Refreshing…</span>}
           </div>
           {calendar.isError && <Notice tone="danger" title="Bookings could not be loaded">{calendar.error.message}</Notice>}
-          <BeamTimeCalendar
-            timeZone={shownZone}
-            calendar={calendar.data}
-            configurationName={data.configurationName}
-            canEditMaintenance={isStaff}
-            onRangeChange={setRange}
-            onSelectRange={openFromSelection}
-            onBookingClick={setDetails}
-            onMaintenanceClick={(m) => (isStaff ? setMaintenance({ initial: {}, existing: m }) : toast.info(`Maintenance: ${m.reason}`))}
-            onMaintenanceChange={onMaintenanceChange}
-          />
+          <div onPointerDownCapture={preloadCalendarForms}>
+            <BeamTimeCalendar
+              timeZone={shownZone}
+              // drawn once the configuration names are in (they are asked for alongside the week and come back
+              // sooner): drawing with stand-in names first would redraw every event a moment later
+              calendar={data.configurationsLoading ? undefined : calendar.data}
+              configurationName={data.configurationName}
+              canEditMaintenance={isStaff}
+              onRangeChange={setRange}
+              onSelectRange={openFromSelection}
+              onBookingClick={setDetails}
+              onMaintenanceClick={(m) => (isStaff ? setMaintenance({ initial: {}, existing: m }) : toast.info(`Maintenance: ${m.reason}`))}
+              onMaintenanceChange={onMaintenanceChange}
+            />
+          </div>
           <NotOnGrid bookings={calendar.data?.bookings ?? []} timeZone={shownZone} configurationName={data.configurationName} onOpen={setDetails} />
         </div>
         <aside className="space-y-4">
@@ -149,7 +163,7 @@ export function CalendarPage() {
         onMaintenance={(slot) => (setSelection(null), setMaintenance({ initial: slot, existing: null }))}
       />
       {request && (
-        <RequestForm
+        <RequestFormDialog
           open
           onClose={() => setRequest(null)}
           timeZone={facilityZone}
@@ -162,7 +176,7 @@ export function CalendarPage() {
         />
       )}
       {maintenance && (
-        <MaintenanceForm
+        <MaintenanceFormDialog
           open
           onClose={() => setMaintenance(null)}
           timeZone={facilityZone}

@@ -1,4 +1,4 @@
-import { localDate } from '@femtoslot/shared';
+import { localDate } from '@femtoslot/shared/time/zoned-time';
 import { useCallback, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Notice } from '../../../components/ui/notice';

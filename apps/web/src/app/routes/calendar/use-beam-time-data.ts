@@ -4,6 +4,7 @@ import { defaultConfigurationName } from '../../../features/bookings/lib/calenda
 import { type Configuration, configurationsQueryOptions } from '../../../features/configurations/api/get-configurations';
 import { type Instrument, useInstruments } from '../../../features/configurations/api/get-instruments';
 import { useFacility } from '../../../features/facility/api/get-facility';
+import { defaultInstrumentId } from './default-instrument';
 
 /** Facility, instruments and every instrument's configurations: what the calendar pages compose from. */
 export function useBeamTimeData() {
@@ -11,9 +12,14 @@ export function useBeamTimeData() {
   const instruments = useInstruments();
   const list: Instrument[] = useMemo(() => instruments.data ?? [], [instruments.data]);
   const perInstrument = useQueries({ queries: list.map((i) => configurationsQueryOptions(i.id)) });
-  const configurationsKey = perInstrument.map((q) => q.dataUpdatedAt).join(',');
-  // the update stamps stand for the results: useQueries hands back a new array on every render
-  const configurations: Configuration[] = useMemo(() => perInstrument.flatMap((q) => q.data ?? []), [configurationsKey]);
+  const configurationsLoading = perInstrument.some((q) => q.isPending);
+  // The update stamps stand for the results (useQueries hands back a new array on every render). Taken once all
+  // have settled: each new list renames every event, and redrawing the grid per instrument costs more than the wait.
+  const configurationsKey = configurationsLoading ? 'loading' : perInstrument.map((q) => q.dataUpdatedAt).join(',');
+  const configurations: Configuration[] = useMemo(
+    () => (configurationsLoading ? [] : perInstrument.flatMap((q) => q.data ?? [])),
+    [configurationsKey],
+  );
   const configurationName = useCallback(
     (configurationId: string, outputKind: string) => configurations.find((c) => c.id === configurationId)?.name ?? defaultConfigurationName(outputKind),
     [configurations],
@@ -23,9 +29,9 @@ export function useBeamTimeData() {
     facility,
     instruments,
     instrumentList: list,
-    defaultInstrumentId: list.find((i) => i.kind === 'source')?.id ?? list[0]?.id ?? '',
+    defaultInstrumentId: defaultInstrumentId(list),
     configurations,
-    configurationsLoading: perInstrument.some((q) => q.isPending),
+    configurationsLoading,
     configurationsError,
     configurationName,
   };

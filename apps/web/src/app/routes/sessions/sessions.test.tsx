@@ -140,6 +140,8 @@ describe('session log pages', () => {
     const lines = ['delay_fs,signal', ...Array.from({ length: 201 }, (_, i) => { const t = -500 + i * 5; return `${t},${Math.exp(-(t * t) / (2 * sigma * sigma)).toFixed(6)}`; })];
     await dropFile(form.querySelector('[data-testid="trace-drop"]')!, new File([lines.join('\n')], 'ac.csv', { type: 'text/csv' }));
     await until(form, '[data-testid="trace-result"]');
+    // the plot's script loads on the drop, so it may land just after the analysis
+    await until(form, '[data-testid="trace-plot"]');
     expect(form.querySelector('[data-testid="trace-plot"]')).not.toBeNull();
     expect(form.querySelector('[data-testid="trace-result"]')?.getAttribute('data-pulse-fs')).toBe('100');
     expect(field(form, 'segments.0.pulseFwhmFs').value).toBe('100');

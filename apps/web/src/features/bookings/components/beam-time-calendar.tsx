@@ -2,11 +2,12 @@ import type { CalendarDto, MaintenanceDto, BookingDto } from '@femtoslot/shared'
 import type { DatesSetArg, DateSelectArg, EventClickArg, EventContentArg, EventDropArg, EventMountArg } from '@fullcalendar/core';
 import dayGridPlugin from '@fullcalendar/daygrid';
 import interactionPlugin, { type EventResizeDoneArg } from '@fullcalendar/interaction';
-import luxonPlugin from '@fullcalendar/luxon3';
 import FullCalendar from '@fullcalendar/react';
 import timeGridPlugin from '@fullcalendar/timegrid';
-import { useMemo } from 'react';
+import { useLayoutEffect, useMemo, useRef } from 'react';
 import { type CalendarItem, type GridOptions, eventDataAttributes, toGridEvents } from '../lib/calendar-events';
+import { firstDayOfWeek } from '../lib/calendar-week';
+import { intlTimeZonePlugin } from '../lib/intl-time-zone-plugin';
 
 export interface MaintenanceChange {
   maintenance: MaintenanceDto;
@@ -28,38 +29,70 @@ export interface BeamTimeCalendarProps {
   onMaintenanceChange: (change: MaintenanceChange) => void;
 }
 
-const plugins = [timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin];
+const plugins = [timeGridPlugin, dayGridPlugin, interactionPlugin, intlTimeZonePlugin];
 const hourMinute = { hour: '2-digit', minute: '2-digit', hour12: false } as const;
 
-function itemOf(arg: { event: { extendedProps: Record<string, unknown> } }): CalendarItem {
-  return arg.event.extendedProps.item as CalendarItem;
+// FullCalendar formats a range's end with a new Intl.DateTimeFormat for every event; one kept per locale gives
+// the same text. Markers are wall times coded as UTC, hence timeZone 'UTC', as FullCalendar's own formatter does.
+const clocks = new Map<string, Intl.DateTimeFormat>();
+function clockText(marker: Date, localeCodes: string[]): string {
+  const key = localeCodes.join(',');
+  let clock = clocks.get(key);
+  if (!clock) {
+    clock = new Intl.DateTimeFormat(localeCodes, { ...hourMinute, timeZone: 'UTC' });
+    clocks.set(key, clock);
+  }
+  return clock.format(marker);
 }
 
-function EventInner(arg: EventContentArg) {
+interface EventTimeArg {
+  start: { marker: Date };
+  end?: { marker: Date } | null;
+  localeCodes: string[];
+  defaultSeparator: string;
+}
+
+export function eventTimeText(arg: EventTimeArg): string {
+  const start = clockText(arg.start.marker, arg.localeCodes);
+  if (!arg.end) return start;
+  const end = clockText(arg.end.marker, arg.localeCodes);
+  return start === end ? start : `${start}${arg.defaultSeparator}${end}`;
+}
+const headerToolbar = { left: 'prev,next today', center: 'title', right: 'timeGridWeek,timeGridDay,dayGridMonth' };
+const buttonText = { today: 'Today', week: 'Week', day: 'Day', month: 'Month' };
+const dayHeaderFormat = { weekday: 'short', day: 'numeric', month: 'numeric', omitCommas: true } as const;
+
+/** The booking, window or band behind an event; undefined for the mirror FullCalendar draws while a range is dragged. */
+function itemOf(arg: { event: { extendedProps: Record<string, unknown> } }): CalendarItem | undefined {
+  return arg.event.extendedProps.item as CalendarItem | undefined;
+}
+
+/** FullCalendar's own (Preact) element factory, handed to content hooks as their second argument. */
+type CreateElement = (type: string, props: { className: string } | null, ...children: unknown[]) => unknown;
+
+// Built with FullCalendar's factory rather than as React elements: React content is mounted through one portal
+// per event and re-renders the whole grid each time one changes, which made a 300-event week slow to appear.
+function eventInner(arg: EventContentArg, h: CreateElement) {
   const item = itemOf(arg);
-  if (item.kind === 'changeover') return <span className="fs-changeover-label">{arg.event.title}</span>;
+  if (!item) return true;
+  const span = (className: string, text: string) => h('span', { className }, text);
+  if (item.kind === 'changeover') return span('fs-changeover-label', arg.event.title);
   if (item.kind === 'maintenance') {
-    return (
-      <div className="fs-event-inner">
-        <span className="fs-event-kicker">Maintenance</span>
-        <span className="fs-event-title">{arg.event.title}</span>
-      </div>
-    );
+    return h('div', { className: 'fs-event-inner' }, span('fs-event-kicker', 'Maintenance'), span('fs-event-title', arg.event.title));
   }
-  return (
-    <div className="fs-event-inner">
-      {arg.timeText && <span className="fs-event-time">{arg.timeText}</span>}
-      <span className="fs-event-title">{arg.event.title}</span>
-      {item.booking.status === 'requested' && <span className="fs-event-kicker">awaiting staff</span>}
-      {item.booking.detail && arg.view.type !== 'dayGridMonth' && (
-        <span className="fs-event-sub">{item.booking.detail.userName}</span>
-      )}
-    </div>
+  return h(
+    'div',
+    { className: 'fs-event-inner' },
+    arg.timeText ? span('fs-event-time', arg.timeText) : null,
+    span('fs-event-title', arg.event.title),
+    item.booking.status === 'requested' ? span('fs-event-kicker', 'awaiting staff') : null,
+    item.booking.detail && arg.view.type !== 'dayGridMonth' ? span('fs-event-sub', item.booking.detail.userName) : null,
   );
 }
 
 function mountEvent(arg: EventMountArg) {
   const item = itemOf(arg);
+  if (!item) return;
   for (const [key, value] of Object.entries(eventDataAttributes(item))) arg.el.dataset[key] = value;
   if (item.kind === 'booking') {
     const b = item.booking;
@@ -70,48 +103,59 @@ function mountEvent(arg: EventMountArg) {
   }
 }
 
-/** The beam-time grid: bookings by configuration colour, hatched maintenance, changeover bands. */
+/**
+ * The beam-time grid: bookings by configuration colour, hatched maintenance, changeover bands.
+ * Each update of the FullCalendar component resets all its options and re-measures the whole grid, so its element
+ * is memoised on the events and the zone, and the handlers reach the latest props through a ref.
+ */
 export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
-  const { calendar, configurationName, canEditMaintenance } = props;
+  const { calendar, configurationName, canEditMaintenance, timeZone } = props;
+  const latest = useRef(props);
+  useLayoutEffect(() => {
+    latest.current = props;
+  });
   const events = useMemo(
     () => (calendar ? toGridEvents(calendar, { configurationName, canEditMaintenance }) : []),
     [calendar, configurationName, canEditMaintenance],
   );
 
-  const onDatesSet = (arg: DatesSetArg) =>
-    props.onRangeChange({ from: new Date(arg.startStr).toISOString(), to: new Date(arg.endStr).toISOString() });
+  const handlers = useMemo(() => {
+    const onMaintenanceMoved = (arg: EventDropArg | EventResizeDoneArg) => {
+      const item = itemOf(arg);
+      if (item?.kind !== 'maintenance' || !arg.event.start || !arg.event.end) return arg.revert();
+      latest.current.onMaintenanceChange({
+        maintenance: item.maintenance,
+        startsAt: new Date(arg.event.startStr).toISOString(),
+        endsAt: new Date(arg.event.endStr).toISOString(),
+        revert: arg.revert,
+      });
+    };
+    return {
+      datesSet: (arg: DatesSetArg) =>
+        latest.current.onRangeChange({ from: new Date(arg.startStr).toISOString(), to: new Date(arg.endStr).toISOString() }),
+      select: (arg: DateSelectArg) => {
+        arg.view.calendar.unselect();
+        latest.current.onSelectRange({ startsAt: new Date(arg.startStr).toISOString(), endsAt: new Date(arg.endStr).toISOString() });
+      },
+      eventClick: (arg: EventClickArg) => {
+        const item = itemOf(arg);
+        if (item?.kind === 'booking') latest.current.onBookingClick(item.booking);
+        if (item?.kind === 'maintenance') latest.current.onMaintenanceClick(item.maintenance);
+      },
+      eventDrop: onMaintenanceMoved,
+      eventResize: onMaintenanceMoved,
+    };
+  }, []);
 
-  const onSelect = (arg: DateSelectArg) => {
-    arg.view.calendar.unselect();
-    props.onSelectRange({ startsAt: new Date(arg.startStr).toISOString(), endsAt: new Date(arg.endStr).toISOString() });
-  };
-
-  const onEventClick = (arg: EventClickArg) => {
-    const item = itemOf(arg);
-    if (item.kind === 'booking') props.onBookingClick(item.booking);
-    if (item.kind === 'maintenance') props.onMaintenanceClick(item.maintenance);
-  };
-
-  const onMaintenanceMoved = (arg: EventDropArg | EventResizeDoneArg) => {
-    const item = itemOf(arg);
-    if (item.kind !== 'maintenance' || !arg.event.start || !arg.event.end) return arg.revert();
-    props.onMaintenanceChange({
-      maintenance: item.maintenance,
-      startsAt: new Date(arg.event.startStr).toISOString(),
-      endsAt: new Date(arg.event.endStr).toISOString(),
-      revert: arg.revert,
-    });
-  };
-
-  return (
-    <div data-testid="calendar" data-time-zone={props.timeZone} className="fs-calendar">
+  const grid = useMemo(
+    () => (
       <FullCalendar
         plugins={plugins}
-        timeZone={props.timeZone}
+        timeZone={timeZone}
         initialView="timeGridWeek"
-        headerToolbar={{ left: 'prev,next today', center: 'title', right: 'timeGridWeek,timeGridDay,dayGridMonth' }}
-        buttonText={{ today: 'Today', week: 'Week', day: 'Day', month: 'Month' }}
-        firstDay={1}
+        headerToolbar={headerToolbar}
+        buttonText={buttonText}
+        firstDay={firstDayOfWeek}
         allDaySlot={false}
         nowIndicator
         height={820}
@@ -119,22 +163,25 @@ export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
         slotDuration="00:30:00"
         scrollTime="07:00:00"
         slotLabelFormat={hourMinute}
-        eventTimeFormat={hourMinute}
-        dayHeaderFormat={{ weekday: 'short', day: 'numeric', month: 'numeric', omitCommas: true }}
+        eventTimeFormat={eventTimeText}
+        dayHeaderFormat={dayHeaderFormat}
         selectable
         selectMirror
         unselectAuto
         editable={false}
         eventOverlap={false}
         events={events}
-        datesSet={onDatesSet}
-        select={onSelect}
-        eventClick={onEventClick}
-        eventDrop={onMaintenanceMoved}
-        eventResize={onMaintenanceMoved}
-        eventContent={EventInner}
+        {...handlers}
+        eventContent={eventInner}
         eventDidMount={mountEvent}
       />
+    ),
+    [timeZone, events, handlers],
+  );
+
+  return (
+    <div data-testid="calendar" data-time-zone={timeZone} className="fs-calendar">
+      {grid}
     </div>
   );
 }

@@ -12,7 +12,7 @@ import { useBooking } from '../api/get-booking';
 import { useMoveBooking } from '../api/move-booking';
 import { targetLabel } from '../lib/calendar-events';
 import { type CancellationFee, type CancellationWindows, cancellationFee } from '../lib/cancellation-fee';
-import { changeoverGapDetails } from '../lib/request-form-values';
+import { changeoverGapDetails } from '../lib/changeover-gap';
 import { CancelAction, DeclineAction } from './booking-actions';
 
 export const statusLabels: Record<BookingDto['status'], string> = {

@@ -12,14 +12,8 @@ import { useDebouncedValue } from '../../../lib/use-debounced-value';
 import { formatInstant, formatMinutes, instantToFields } from '../../../lib/wall-time';
 import { useBookingCheck } from '../api/check-booking';
 import { useCreateBooking } from '../api/create-booking';
-import {
-  type ChangeoverGapDetails,
-  type RequestFormValues,
-  buildRequest,
-  changeoverGapDetails,
-  requestFormSchema,
-  serverFieldFor,
-} from '../lib/request-form-values';
+import { type ChangeoverGapDetails, changeoverGapDetails } from '../lib/changeover-gap';
+import { type RequestFormValues, buildRequest, requestFormSchema, serverFieldFor } from '../lib/request-form-values';
 import { RequestCheckPanel } from './request-check-panel';
 import { type RequestConfiguration, TargetFields, TimeFields, defaultTargetText } from './request-form-fields';
 import { SafetyStep } from './safety-step';

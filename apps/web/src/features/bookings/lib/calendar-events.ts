@@ -1,11 +1,5 @@
-import {
-  type BookingDto,
-  type CalendarDto,
-  type ChangeoverBandDto,
-  type MaintenanceDto,
-  type OutputKind,
-  outputKindLabels,
-} from '@femtoslot/shared';
+import type { BookingDto, CalendarDto, ChangeoverBandDto, MaintenanceDto } from '@femtoslot/shared';
+import { type OutputKind, outputKindLabels } from '@femtoslot/shared/facility/output-kinds';
 import { configurationColour } from '../../../lib/configuration-colour';
 
 export type CalendarItem =

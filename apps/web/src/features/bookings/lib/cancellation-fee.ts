@@ -1,4 +1,4 @@
-import { cancellationFeePercent } from '@femtoslot/shared';
+import { cancellationFeePercent } from '@femtoslot/shared/bookings/booking-policy';
 
 export interface CancellationWindows {
   cancellationFreeHours: number;

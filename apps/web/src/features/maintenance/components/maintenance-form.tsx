@@ -8,9 +8,10 @@ import { Dialog } from '../../../components/ui/dialog';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { fieldsToInstant, formatMinutes, instantToFields } from '../../../lib/wall-time';
-import { type MaintenanceResult, useCreateMaintenance } from '../api/create-maintenance';
+import { useCreateMaintenance } from '../api/create-maintenance';
 import { useDeleteMaintenance } from '../api/delete-maintenance';
 import { useUpdateMaintenance } from '../api/update-maintenance';
+import { displacedToast } from './displaced-toast';
 
 const formSchema = z.object({
   instrumentId: z.string().min(1, 'Choose an instrument'),
@@ -21,13 +22,6 @@ const formSchema = z.object({
   reason: z.string().trim().min(3, 'Say what the maintenance is').max(500),
 });
 type FormValues = z.infer<typeof formSchema>;
-
-export function displacedToast(verb: string, result: MaintenanceResult) {
-  const n = result.displaced.length;
-  toast.success(`Maintenance ${verb}`, {
-    description: n === 0 ? 'No bookings were displaced.' : `${n} booking${n === 1 ? ' was' : 's were'} displaced and offered new slots.`,
-  });
-}
 
 export interface MaintenanceFormProps {
   open: boolean;

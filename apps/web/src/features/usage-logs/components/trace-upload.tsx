@@ -1,10 +1,23 @@
 import { type AttachmentDto, type AutocorrelationResult, type PulseShape, analyseAutocorrelation, parseAutocorrelationCsv } from '@femtoslot/shared';
-import { useEffect, useRef, useState } from 'react';
+import { type ReactNode, Suspense, useEffect, useRef, useState } from 'react';
 import { DropZone } from '../../../components/ui/drop-zone';
+import { PartLoadBoundary, lazyPart } from '../../../components/ui/lazy-part';
 import { Spinner } from '../../../components/ui/spinner';
 import { type TraceAnalysis, analyseTrace } from '../api/analyse-trace';
 import { uploadAttachment } from '../api/upload-attachment';
-import { TracePlot } from './trace-plot';
+
+// The plot brings the charting library (over half of the session page's script) and is drawn only once a trace
+// is dropped, so it loads then, alongside reading the file and the upload.
+const loadTracePlot = () => import('./trace-plot');
+const TracePlot = lazyPart(() => loadTracePlot().then((m) => m.TracePlot));
+
+function PlotPlaceholder({ children }: { children: ReactNode }) {
+  return (
+    <div role="status" className="flex h-[17rem] items-center justify-center gap-2 rounded-lg border border-line bg-panel text-xs text-ink-muted">
+      {children}
+    </div>
+  );
+}
 
 export interface TraceOutcome {
   pulseFwhmFs: number;
@@ -78,6 +91,7 @@ export function TraceUpload({ bookingId, shape, colour, disabled, existing, onRe
 
   const onFiles = async ([picked]: File[]) => {
     if (!picked) return;
+    loadTracePlot().catch(() => undefined);
     run.current += 1;
     setFile(picked);
     setServer(null);
@@ -136,7 +150,13 @@ export function TraceUpload({ bookingId, shape, colour, disabled, existing, onRe
           {error}
         </p>
       )}
-      {local && <TracePlot points={local.points} analysis={local.analysis} colour={colour} />}
+      {local && (
+        <PartLoadBoundary failed={<PlotPlaceholder>The plot could not be loaded; the pulse duration below still applies.</PlotPlaceholder>}>
+          <Suspense fallback={<PlotPlaceholder><Spinner /> Drawing the trace…</PlotPlaceholder>}>
+            <TracePlot points={local.points} analysis={local.analysis} colour={colour} />
+          </Suspense>
+        </PartLoadBoundary>
+      )}
       {busy && (
         <p className="flex items-center gap-2 text-xs text-ink-muted" role="status">
           <Spinner /> Storing the trace and computing the pulse duration…
