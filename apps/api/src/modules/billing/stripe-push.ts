@@ -4,7 +4,7 @@ import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
 import { idempotencyKeys, stripeFor } from '../../lib/stripe/stripe-client';
 import { Account } from '../accounts/account.entity';
-import { FacilitySettings } from '../facility/facility-settings.entity';
+import type { FacilitySettings } from '../facility/facility-settings.entity';
 import type { BillingPeriod, BillingPeriodAccount } from './billing.entities';
 
 const daysUntilDueSchema = z.number().int().min(0).max(365).catch(30);
@@ -31,9 +31,8 @@ export interface PushedInvoice { stripeInvoice: Stripe.Invoice }
  * Customer, draft invoice, one invoice item per line, finalize, send: each call keyed by period, account and line,
  * and the draft's id kept as soon as it exists, so a retry — or a restart days later — adds nothing twice.
  */
-export async function pushToStripe(ctx: AppContext, period: BillingPeriod, row: BillingPeriodAccount, lines: PriceLine[]): Promise<PushedInvoice> {
+export async function pushToStripe(ctx: AppContext, period: BillingPeriod, row: BillingPeriodAccount, lines: PriceLine[], facility: FacilitySettings): Promise<PushedInvoice> {
   const stripe = stripeFor(ctx.env);
-  const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
   const customer = await ensureCustomer(ctx, stripe, row.accountId);
   const currency = row.currency.trim().toLowerCase();
   let invoiceId = row.stripeInvoiceId;
