@@ -18,17 +18,24 @@ async function nextNumber(m: EntityManager, month: string, prefix: 'INV' | 'JNL'
 }
 
 /** What every account of one run shares: read once per run, not once per account. */
-interface CloseRun { ctx: AppContext; period: BillingPeriod; billedBy: string; facility: FacilitySettings }
+interface CloseRun { ctx: AppContext; period: BillingPeriod; billedBy: string; facility: FacilitySettings; accounts: Map<string, Account> }
+
+function accountOf(run: CloseRun, accountId: string): Account {
+  const account = run.accounts.get(accountId);
+  if (!account) throw new Error(`account ${accountId} not found`);
+  return account;
+}
 
 /**
  * Records one account as done, in one transaction: the invoice row, journal lines (internal), the logs marked
  * billed, the progress row. The row lock makes a second runner wait and then see that the account is done.
  */
-async function recordDone({ ctx, period, billedBy, facility }: CloseRun, accountId: string, external: { status: InvoiceStatus; stripeInvoiceId: string; number: string | null; url: string | null; dueDate: string | null; amountPaid: number } | null): Promise<void> {
+async function recordDone(run: CloseRun, accountId: string, external: { status: InvoiceStatus; stripeInvoiceId: string; number: string | null; url: string | null; dueDate: string | null; amountPaid: number } | null): Promise<void> {
+  const { ctx, period, billedBy, facility } = run;
+  const account = accountOf(run, accountId);
   await ctx.db.transaction(async (m) => {
     const row = await m.getRepository(BillingPeriodAccount).findOne({ where: { periodId: period.id, accountId }, lock: { mode: 'pessimistic_write' } });
     if (!row || row.status === 'done') return;
-    const account = await m.getRepository(Account).findOneByOrFail({ id: accountId });
     const internal = account.kind === 'cost_centre';
     const invoice = await m.getRepository(Invoice).save(m.getRepository(Invoice).create({
       periodId: period.id, accountId, organisationId: account.organisationId, number: await nextNumber(m, period.month, internal ? 'JNL' : 'INV'),
@@ -56,7 +63,7 @@ async function recordDone({ ctx, period, billedBy, facility }: CloseRun, account
 
 async function billAccount(run: CloseRun, row: BillingPeriodAccount): Promise<void> {
   const { ctx, period, facility } = run;
-  const account = await ctx.db.getRepository(Account).findOneByOrFail({ id: row.accountId });
+  const account = accountOf(run, row.accountId);
   if (account.kind === 'cost_centre' || row.totalMinor === 0) {
     // Internal groups are charged by journal; a zero statement has nothing to collect, so it needs no Stripe invoice.
     await recordDone(run, row.accountId, null);
@@ -114,10 +121,12 @@ async function runClose(ctx: AppContext, jobId: string): Promise<void> {
   await jobs.update({ id: jobId }, { status: 'running', startedAt: new Date(), errors: [] });
   const period = await ctx.db.getRepository(BillingPeriod).findOneByOrFail({ id: job.periodId });
   const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-  const run: CloseRun = { ctx, period, billedBy: period.closeRequestedBy ?? job.requestedBy!, facility };
   // Counted once; each account this run finishes adds one.
   let done = await accounts.countBy({ periodId: period.id, status: 'done' });
   const rows = await accounts.find({ where: { periodId: period.id, status: 'pending' }, order: { accountId: 'ASC' } });
+  // Name, kind, cost centre and billing contact only; the Stripe customer is read under its own row lock.
+  const byId = new Map((rows.length ? await ctx.db.getRepository(Account).findBy({ id: In(rows.map((r) => r.accountId)) }) : []).map((a) => [a.id, a]));
+  const run: CloseRun = { ctx, period, billedBy: period.closeRequestedBy ?? job.requestedBy!, facility, accounts: byId };
   const errors: BillingJobError[] = [];
   const reportProgress = latestWins(() => jobs.update({ id: jobId }, { done, errors: [...errors] }).then(() => undefined));
   await eachBounded(rows, CLOSE_CONCURRENCY, async (row) => {
