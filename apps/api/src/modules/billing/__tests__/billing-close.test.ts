@@ -171,6 +171,33 @@ describe('billing period close', () => {
     for (const j of journal) expect(j).toMatchObject({ n: 3, keys: 3, total: '13500' });
   });
 
+  it('when Stripe refuses half its calls with 429 (rate limited), then the close waits and repeats them and finishes in one run with one invoice', async () => {
+    const { fake, stripe, t } = w;
+    const month = '2026-06';
+    const people = await financeAgent(t);
+    await monthRateCard(people.finance, month);
+    const { instrument, configs } = await makeInstrument(t);
+    // One external account, so its calls, and the fake's seeded draws, come in one fixed order.
+    const industry = await makeBooker(t, { kind: 'industry' });
+    await confirmedSession(t, { instrumentId: instrument.id, configuration: configs.opa_signal, who: industry, startsAt: `${month}-09T13:00:00Z`, bookedHours: 2, actualEnd: `${month}-09T15:00:00Z`, confirmedBy: people.financeUser.id });
+    const opened = await people.finance.post('/api/billing/periods').send({ month });
+    const periodId = opened.body.period.id as string;
+
+    fake.knobs.set({ errorRate: 0.5, errorKind: 'rate_limit', seed: 7 });
+    try {
+      const close = await people.finance.post(`/api/billing/periods/${periodId}/close`).send({});
+      expect(await finishedJob(people.finance, close.body.job.id)).toMatchObject({ status: 'completed', done: 1, total: 1, errors: [] });
+    } finally {
+      fake.knobs.set({ errorRate: 0 });
+    }
+    const ours: Stripe.Invoice[] = [];
+    for await (const inv of stripe.invoices.list({ limit: 100 })) if (inv.metadata?.femtoslot_period === periodId) ours.push(inv);
+    expect(ours).toHaveLength(1);
+    // By hand: 2 h × $260 = $520.00, in one line.
+    expect(ours[0]!.total).toBe(52_000);
+    expect((await stripe.invoices.listLineItems(ours[0]!.id!, { limit: 100 })).data).toHaveLength(1);
+  });
+
   it('when a billed session is logged again, then it is refused as locked (409 log_locked)', async () => {
     const world = await monthWithThreeAccounts('2026-08');
     const opened = await world.finance.post('/api/billing/periods').send({ month: '2026-08' });
