@@ -70,7 +70,9 @@ export function createStripeFake(options: StripeFakeOptions = {}): StripeFake {
   app.use(fakeControlRoutes(context, knobs));
   app.use(hostedInvoiceRoutes(context));
 
-  app.use('/v1', requestContext, faultInjection(knobs), express.urlencoded({ extended: true }), authenticate(options.apiKeys), idempotency(store));
+  // The body is read before the latency wait, as a real server has the whole request before it acts on it: a client
+  // that goes away during the wait must not leave its call carried out with empty params under its idempotency key.
+  app.use('/v1', requestContext, express.urlencoded({ extended: true }), faultInjection(knobs), authenticate(options.apiKeys), idempotency(store));
   app.use(customerRoutes(context));
   app.use(invoiceItemRoutes(context));
   app.use(invoiceRoutes(context));

@@ -1,3 +1,4 @@
+import { request } from 'node:http';
 import { describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import { startFake, stripeClient, TEST_KEY } from './support';
@@ -25,6 +26,28 @@ describe('errors and idempotency', () => {
     expect(error).toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
     expect((error as Stripe.errors.StripeError).statusCode).toBe(400);
     expect((error as Stripe.errors.StripeError).raw).toMatchObject({ type: 'idempotency_error' });
+  });
+
+  it('when the client goes away while its POST waits out the latency, then the call is carried out with the params it sent and a retry with the key replays it', async () => {
+    const { stripe, fake, port } = await startFake();
+    fake.knobs.set({ latencyMs: 300 });
+    const body = 'name=Gone+Lab&metadata[lab]=gone';
+    await new Promise<void>((resolve) => {
+      const req = request({ host: '127.0.0.1', port, path: '/v1/customers', method: 'POST', headers: {
+        Authorization: `Bearer ${TEST_KEY}`, 'Content-Type': 'application/x-www-form-urlencoded', 'Content-Length': Buffer.byteLength(body), 'Idempotency-Key': 'cust-gone',
+      } });
+      req.on('error', () => resolve());
+      req.end(body);
+      // Gone after the whole request was sent, while the fake is still waiting: what a client killed mid-call looks like.
+      setTimeout(() => req.destroy(), 50);
+    });
+    await new Promise((r) => setTimeout(r, 400));
+
+    const retried = await stripe.customers.create({ name: 'Gone Lab', metadata: { lab: 'gone' } }, { idempotencyKey: 'cust-gone' });
+
+    expect(retried.lastResponse.headers['idempotent-replayed']).toBe('true');
+    expect(retried).toMatchObject({ name: 'Gone Lab', metadata: { lab: 'gone' } });
+    expect(Object.values(fake.state.data.customers).map((c) => c.name)).toEqual(['Gone Lab']);
   });
 
   it('when two API keys use the same Idempotency-Key, then each gets its own result', async () => {

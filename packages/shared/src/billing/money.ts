@@ -67,9 +67,17 @@ export function minorToDecimalString(minor: number, currency: string): string {
   return `${minor < 0 ? '-' : ''}${whole}${fraction}`;
 }
 
+// Building a NumberFormat costs far more than using one, and a statement formats every line's rate.
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+
 /** For display: Intl.NumberFormat with the ISO 4217 exponent, fed the exact decimal string. */
 export function formatMoney(minor: number, currency: string, locale = 'en-US'): string {
   const exponent = minorUnitExponent(currency);
-  const format = new Intl.NumberFormat(locale, { style: 'currency', currency, minimumFractionDigits: exponent, maximumFractionDigits: exponent });
+  const key = `${locale}|${currency}`;
+  let format = moneyFormats.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat(locale, { style: 'currency', currency, minimumFractionDigits: exponent, maximumFractionDigits: exponent });
+    moneyFormats.set(key, format);
+  }
   return format.format(minorToDecimalString(minor, currency) as unknown as number);
 }

@@ -10,6 +10,7 @@ import { BillingJob, BillingPeriod, BillingPeriodAccount } from './billing.entit
 import { computeStatement, monthBounds, type AccountStatement } from './statement';
 
 export const BILLING_CLOSE_QUEUE = 'billing-close';
+const FREEZE_CHUNK = 50;
 
 export const toPeriodDto = (p: BillingPeriod) => ({
   id: p.id, month: p.month, startsAt: p.startsAt.toISOString(), endsAt: p.endsAt.toISOString(), timeZone: p.timeZone, status: p.status,
@@ -88,8 +89,11 @@ export function billingService(ctx: AppContext) {
       if (active) return { period, job: active, started: false };
       if (period.status === 'open') {
         const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-        for (const a of await computeStatement(m, facility, period)) {
-          await m.getRepository(BillingPeriodAccount).insert({ periodId, accountId: a.accountId, currency: a.currency, lines: a.lines, totalMinor: a.totalMinor, status: 'pending' });
+        const statement = await computeStatement(m, facility, period);
+        // In chunks: one statement per chunk keeps the round trips few and each query's text bounded.
+        for (let i = 0; i < statement.length; i += FREEZE_CHUNK) {
+          await m.getRepository(BillingPeriodAccount).insert(statement.slice(i, i + FREEZE_CHUNK).map((a) => (
+            { periodId, accountId: a.accountId, currency: a.currency, lines: a.lines, totalMinor: a.totalMinor, status: 'pending' as const })));
         }
         period.status = 'closing';
         period.closeRequestedBy = user.id;

@@ -1,13 +1,13 @@
 import { changeoverFor, localDate, wallTimeAt, zonedToUtc, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
 import { cancellationFeeLine, displacementLine, usageLines, type LineContext } from '@femtoslot/shared/billing/pricing';
-import { In, LessThanOrEqual, Not, type EntityManager } from 'typeorm';
+import { In, type EntityManager } from 'typeorm';
 import { Account } from '../accounts/account.entity';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { loadInstrumentTimeline, stateOf } from '../bookings/timeline.repository';
+import { loadInstrumentTimeline, stateOf, type InstrumentTimeline } from '../bookings/timeline.repository';
 import type { FacilitySettings } from '../facility/facility-settings.entity';
 import { Configuration } from '../instruments/configuration.entity';
 import { Organisation } from '../organisations/organisation.entity';
-import { rateCardOn } from '../rate-cards/rate-card-lookup';
+import { rateCardsBetween } from '../rate-cards/rate-card-lookup';
 import type { RateCard } from '../rate-cards/rate-card.entity';
 import { UsageLog } from '../usage/usage-log.entity';
 
@@ -18,99 +18,147 @@ export function monthBounds(month: string, timeZone: string): { startsAt: Date; 
   return { startsAt: zonedToUtc({ year, month: mon, day: 1, hour: 0, minute: 0 }, timeZone), endsAt: zonedToUtc({ ...next, day: 1, hour: 0, minute: 0 }, timeZone) };
 }
 
-function clock(d: Date, tz: string): string {
-  const w = wallTimeAt(d, tz);
-  return `${String(w.hour).padStart(2, '0')}:${String(w.minute).padStart(2, '0')}`;
+const pad = (n: number) => String(n).padStart(2, '0');
+
+/** "2026-10-06 09:04–12:08" in the facility's zone; each instant converted once (the zone lookup is the costly part). */
+function interval(start: Date, end: Date, tz: string): string {
+  const s = wallTimeAt(start, tz);
+  const e = wallTimeAt(end, tz);
+  return `${s.year}-${pad(s.month)}-${pad(s.day)} ${pad(s.hour)}:${pad(s.minute)}–${pad(e.hour)}:${pad(e.minute)}`;
 }
 
-/** Changeover minutes the source needed before this booking, from the booking before it on the same instrument. */
-async function changeoverBefore(m: EntityManager, b: TimelineBlock): Promise<number> {
-  const previous = await m.getRepository(TimelineBlock).findOne({
-    where: { instrumentId: b.instrumentId, kind: 'booking', status: In(['approved', 'completed']), endsAt: LessThanOrEqual(b.startsAt), id: Not(b.id) },
-    order: { endsAt: 'DESC' },
-  });
-  if (!previous) return 0;
-  const timeline = await loadInstrumentTimeline(m, b.instrumentId);
-  const from = stateOf(previous, timeline.configurations);
-  const to = stateOf(b, timeline.configurations);
-  return to ? changeoverFor(from, to, timeline.model, false).totalMinutes : 0;
+/** Everything a booking's lines are priced from besides the booking itself, loaded once for a whole statement. */
+export interface StatementLookups {
+  accounts: Map<string, Account>;
+  organisations: Map<string, Organisation>;
+  configurations: Map<string, Configuration>;
+  /** Changeover minutes before each booking (by booking id); only filled when a rate card charges a share of it. */
+  changeoverBefore: Map<string, number>;
+}
+
+const found = <T>(map: Map<string, T>, id: string, what: string): T => {
+  const v = map.get(id);
+  // The foreign keys make this unreachable; an invariant broken here is a 500, not a silently wrong line.
+  if (!v) throw new Error(`statement: ${what} ${id} not found`);
+  return v;
+};
+
+/**
+ * Changeover minutes the source needed before each booking, from the booking before it on the same instrument: one
+ * query for every predecessor, one timeline per instrument.
+ */
+async function changeoverBeforeAll(m: EntityManager, bookings: TimelineBlock[]): Promise<Map<string, number>> {
+  const out = new Map<string, number>();
+  if (!bookings.length) return out;
+  const previous: { booking_id: string; configuration_id: string | null; target_min_nm: string | null; target_max_nm: string | null }[] = await m.query(
+    `SELECT b.id AS booking_id, p.configuration_id, p.target_min_nm, p.target_max_nm
+       FROM timeline_blocks b
+       JOIN LATERAL (SELECT q.configuration_id, q.target_min_nm, q.target_max_nm FROM timeline_blocks q
+                      WHERE q.instrument_id = b.instrument_id AND q.kind = 'booking' AND q.status IN ('approved', 'completed')
+                        AND q.ends_at <= b.starts_at AND q.id <> b.id
+                      ORDER BY q.ends_at DESC LIMIT 1) p ON true
+      WHERE b.id = ANY($1::uuid[])`, [bookings.map((b) => b.id)]);
+  const byId = new Map(bookings.map((b) => [b.id, b]));
+  const timelines = new Map<string, InstrumentTimeline>();
+  for (const p of previous) {
+    const b = byId.get(p.booking_id)!;
+    let timeline = timelines.get(b.instrumentId);
+    if (!timeline) {
+      timeline = await loadInstrumentTimeline(m, b.instrumentId);
+      timelines.set(b.instrumentId, timeline);
+    }
+    const nm = (v: string | null) => (v === null ? null : Number(v));
+    const from = stateOf({ configurationId: p.configuration_id, targetMinNm: nm(p.target_min_nm), targetMaxNm: nm(p.target_max_nm) }, timeline.configurations);
+    const to = stateOf(b, timeline.configurations);
+    if (to) out.set(b.id, changeoverFor(from, to, timeline.model, false).totalMinutes);
+  }
+  return out;
+}
+
+/** The accounts, organisations and configurations of these bookings, three queries whatever their number. */
+export async function loadStatementLookups(m: EntityManager, bookings: TimelineBlock[], withChangeover: boolean): Promise<StatementLookups> {
+  const byId = async <T extends { id: string }>(entity: new () => T, ids: (string | null)[]): Promise<Map<string, T>> => {
+    const wanted = [...new Set(ids.filter((id): id is string => id !== null))];
+    const rows = wanted.length ? await m.getRepository(entity).findBy({ id: In(wanted) } as never) : [];
+    return new Map(rows.map((r) => [r.id, r]));
+  };
+  const accounts = await byId(Account, bookings.map((b) => b.accountId));
+  const organisations = await byId(Organisation, [...accounts.values()].map((a) => a.organisationId));
+  const configurations = await byId(Configuration, bookings.map((b) => b.configurationId));
+  const changeoverBefore = withChangeover ? await changeoverBeforeAll(m, bookings) : new Map<string, number>();
+  return { accounts, organisations, configurations, changeoverBefore };
 }
 
 export interface BookingLines { lines: PriceLine[]; basis: 'confirmed_log' | 'unconfirmed_log' | 'booked_times' | 'cancellation' | 'displacement' | 'none' }
 
 /** Price lines of one booking under one rate card: its log if there is one, else its booked times; fees; displacement. */
-export async function linesForBooking(m: EntityManager, facility: FacilitySettings, card: RateCard, b: TimelineBlock, log: UsageLog | null): Promise<BookingLines> {
-  const account = await m.getRepository(Account).findOneByOrFail({ id: b.accountId! });
-  const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: account.organisationId });
-  const configuration = await m.getRepository(Configuration).findOneByOrFail({ id: b.configurationId! });
+export function linesForBooking(look: StatementLookups, facility: FacilitySettings, card: RateCard, b: TimelineBlock, log: UsageLog | null): BookingLines {
+  const account = found(look.accounts, b.accountId!, 'account');
+  const organisation = found(look.organisations, account.organisationId, 'organisation');
+  const configuration = found(look.configurations, b.configurationId!, 'configuration');
   const rules = { currency: card.currency.trim(), billingIncrementMinutes: card.billingIncrementMinutes, changeoverSharePercent: card.changeoverSharePercent, minimumChargeMinutes: card.minimumChargeMinutes, rates: card.rates };
   const tz = facility.timeZone;
   const base = (key: string, label: string): LineContext => ({ key, bookingId: b.id, usageLogId: log?.id ?? null, label, category: organisation.kind as OrganisationKind, rateClass: configuration.rateClass });
   const booked = { start: b.startsAt, end: b.endsAt };
-  const when = `${localDate(b.startsAt, tz)} ${clock(b.startsAt, tz)}–${clock(b.endsAt, tz)}`;
   if (b.status === 'cancelled') {
     if (!b.cancellationFeePercent || !b.cancelledAt) return { lines: [], basis: 'none' };
     const hoursBefore = (b.startsAt.getTime() - b.cancelledAt.getTime()) / 3_600_000;
-    return { lines: [cancellationFeeLine(rules, base(`cancellation-${b.id}`, `Cancelled beam time ${when}, ${configuration.name}`), booked, b.cancellationFeePercent, hoursBefore)], basis: 'cancellation' };
+    const label = `Cancelled beam time ${interval(b.startsAt, b.endsAt, tz)}, ${configuration.name}`;
+    return { lines: [cancellationFeeLine(rules, base(`cancellation-${b.id}`, label), booked, b.cancellationFeePercent, hoursBefore)], basis: 'cancellation' };
   }
-  if (b.status === 'displaced') return { lines: [displacementLine(rules, base(`displacement-${b.id}`, `Displaced beam time ${when}, ${configuration.name}`), booked)], basis: 'displacement' };
-  const changeover = rules.changeoverSharePercent > 0 ? await changeoverBefore(m, b) : 0;
+  if (b.status === 'displaced') return { lines: [displacementLine(rules, base(`displacement-${b.id}`, `Displaced beam time ${interval(b.startsAt, b.endsAt, tz)}, ${configuration.name}`), booked)], basis: 'displacement' };
+  const changeover = rules.changeoverSharePercent > 0 ? look.changeoverBefore.get(b.id) ?? 0 : 0;
   const span = log ? { start: log.actualStartsAt, end: log.actualEndsAt } : booked;
-  const label = `Beam time ${localDate(span.start, tz)} ${clock(span.start, tz)}–${clock(span.end, tz)}, ${configuration.name}`;
+  const label = `Beam time ${interval(span.start, span.end, tz)}, ${configuration.name}`;
   const key = log ? `usage-${log.id}` : `booking-${b.id}`;
   return { lines: usageLines(rules, base(key, label), span, changeover), basis: log ? (log.status === 'submitted' ? 'unconfirmed_log' : 'confirmed_log') : 'booked_times' };
 }
 
 export type { AccountStatement };
 
-const cardCache = (m: EntityManager) => {
-  const cards = new Map<string, Promise<RateCard>>();
-  return async (date: string) => {
-    let c = cards.get(date);
-    if (!c) {
-      c = rateCardOn(m, date);
-      cards.set(date, c);
-    }
-    return c;
-  };
-};
-
 /**
  * The statement of a month: confirmed, unbilled session logs that started in it; cancellation fees of bookings
  * cancelled in it; zero lines for bookings displaced by maintenance that were to start in it. Each line is priced by
- * the rate card in force on its facility-local day.
+ * the rate card in force on its facility-local day. A fixed handful of queries, whatever the number of sessions.
  */
 export async function computeStatement(m: EntityManager, facility: FacilitySettings, bounds: { startsAt: Date; endsAt: Date }): Promise<AccountStatement[]> {
   const tz = facility.timeZone;
-  const cardOn = cardCache(m);
   const logs: UsageLog[] = await m.getRepository(UsageLog).createQueryBuilder('u')
     .where(`u.status = 'confirmed' AND u.actual_starts_at >= :from AND u.actual_starts_at < :to`, { from: bounds.startsAt, to: bounds.endsAt })
     .orderBy('u.actual_starts_at', 'ASC').getMany();
-  const logBookings = logs.length ? await m.getRepository(TimelineBlock).findBy({ id: In(logs.map((l) => l.bookingId)) }) : [];
+  // One array parameter rather than one placeholder per log.
+  const logBookings = logs.length ? await m.getRepository(TimelineBlock).createQueryBuilder('b').where('b.id = ANY(:ids)', { ids: logs.map((l) => l.bookingId) }).getMany() : [];
   const bookingById = new Map(logBookings.map((b) => [b.id, b]));
   const others: TimelineBlock[] = await m.getRepository(TimelineBlock).createQueryBuilder('b')
     .where(`b.kind = 'booking' AND ((b.status = 'cancelled' AND b.cancellation_fee_percent > 0 AND b.cancelled_at >= :from AND b.cancelled_at < :to)
       OR (b.status = 'displaced' AND b.starts_at >= :from AND b.starts_at < :to))`, { from: bounds.startsAt, to: bounds.endsAt })
     .orderBy('b.starts_at', 'ASC').getMany();
+  const priced = [
+    ...logs.map((log) => ({ b: bookingById.get(log.bookingId)!, log, day: localDate(log.actualStartsAt, tz) })),
+    ...others.map((b) => ({ b, log: null, day: localDate(b.status === 'cancelled' ? b.cancelledAt! : b.startsAt, tz) })),
+  ];
+  if (!priced.length) return [];
+
+  const days = priced.map((p) => p.day).sort();
+  const cardOn = await rateCardsBetween(m, days[0]!, days[days.length - 1]!);
+  // Checked in statement order, so a missing card is reported for the first day that needs it.
+  const cards = priced.map((p) => cardOn(p.day));
+  const look = await loadStatementLookups(m, [...logBookings, ...others], cards.some((c) => c.changeoverSharePercent > 0));
 
   const byAccount = new Map<string, PriceLine[]>();
-  const add = (accountId: string, lines: PriceLine[]) => { if (lines.length) byAccount.set(accountId, [...(byAccount.get(accountId) ?? []), ...lines]); };
-  for (const log of logs) {
-    const b = bookingById.get(log.bookingId)!;
-    add(b.accountId!, (await linesForBooking(m, facility, await cardOn(localDate(log.actualStartsAt, tz)), b, log)).lines);
-  }
-  for (const b of others) {
-    const day = localDate(b.status === 'cancelled' ? b.cancelledAt! : b.startsAt, tz);
-    add(b.accountId!, (await linesForBooking(m, facility, await cardOn(day), b, null)).lines);
-  }
-  if (!byAccount.size) return [];
-  const accounts = await m.getRepository(Account).findBy({ id: In([...byAccount.keys()]) });
-  const organisations = new Map((await m.getRepository(Organisation).findBy({ id: In(accounts.map((a) => a.organisationId)) })).map((o) => [o.id, o]));
-  return accounts.map((a) => {
-    const lines = byAccount.get(a.id)!;
+  priced.forEach((p, i) => {
+    const { lines } = linesForBooking(look, facility, cards[i]!, p.b, p.log);
+    if (!lines.length) return;
+    const list = byAccount.get(p.b.accountId!);
+    if (list) list.push(...lines);
+    else byAccount.set(p.b.accountId!, [...lines]);
+  });
+  const currency = facility.currency.trim();
+  return [...byAccount].map(([accountId, lines]) => {
+    const a = found(look.accounts, accountId, 'account');
     return {
-      accountId: a.id, accountName: a.name, accountKind: a.kind, organisationId: a.organisationId, organisationName: organisations.get(a.organisationId)?.name ?? '',
-      costCentreCode: a.costCentreCode, currency: facility.currency.trim(), lines, totalMinor: lines.reduce((s, l) => s + l.amountMinor, 0),
+      accountId: a.id, accountName: a.name, accountKind: a.kind, organisationId: a.organisationId, organisationName: look.organisations.get(a.organisationId)?.name ?? '',
+      costCentreCode: a.costCentreCode, currency, lines, totalMinor: lines.reduce((s, l) => s + l.amountMinor, 0),
     };
   }).sort((x, y) => x.accountName.localeCompare(y.accountName));
 }

@@ -9,7 +9,7 @@ import { recordAudit } from '../audit/audit.service';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { UsageLog } from '../usage/usage-log.entity';
-import { linesForBooking } from '../billing/statement';
+import { linesForBooking, loadStatementLookups } from '../billing/statement';
 import { rateCardOn } from './rate-card-lookup';
 import { RateCard } from './rate-card.entity';
 
@@ -61,7 +61,7 @@ export function rateCardsService(ctx: AppContext) {
     const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
     const log = await m.getRepository(UsageLog).findOneBy({ bookingId });
     const card = await rateCardOn(m, localDate(log?.actualStartsAt ?? b.startsAt, facility.timeZone));
-    const { lines, basis } = await linesForBooking(m, facility, card, b, log);
+    const { lines, basis } = linesForBooking(await loadStatementLookups(m, [b], card.changeoverSharePercent > 0), facility, card, b, log);
     return { lines, totalMinor: lines.reduce((s, l) => s + l.amountMinor, 0), currency: card.currency.trim(), basis };
   }
 

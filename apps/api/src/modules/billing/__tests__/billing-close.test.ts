@@ -6,6 +6,7 @@ import { OutboxMessage } from '../../../lib/mail/outbox-message.entity';
 import { makeBooker, makeInstrument } from '../../../test-support/booking-fixture';
 import { makePeople, startTestApi } from '../../../test-support/test-api';
 import { BillingJob } from '../billing.entities';
+import { CLOSE_CONCURRENCY } from '../close-job';
 import { UsageLog } from '../../usage/usage-log.entity';
 import { confirmedSession, financeAgent, monthRateCard, startBillingWorld, until, type BillingWorld } from './billing-fixture';
 
@@ -120,6 +121,81 @@ describe('billing period close', () => {
     const ours: Stripe.Invoice[] = [];
     for await (const inv of stripe.invoices.list({ limit: 100 })) if (inv.metadata?.femtoslot_period === periodId) ours.push(inv);
     expect(ours).toHaveLength(2);
+  });
+
+  it('when a period has more accounts than the close bills at once, then every account gets exactly one invoice and each line reaches Stripe or the journal once', async () => {
+    const { fake, stripe, t } = w;
+    const month = '2026-11';
+    const people = await financeAgent(t);
+    await monthRateCard(people.finance, month);
+    const { instrument, configs } = await makeInstrument(t);
+    const kinds = ['external_academic', 'industry', 'internal'] as const;
+    const bookers = [];
+    for (let i = 0; i < 3 * CLOSE_CONCURRENCY; i++) bookers.push(await makeBooker(t, { kind: kinds[i % 3]! }));
+    // Three one-hour sessions per account on its own day, 2 h apart: 09:00, 11:00 and 13:00 New York time.
+    for (const [i, who] of bookers.entries()) {
+      const day = `${month}-${String(2 + i).padStart(2, '0')}`;
+      for (const hour of [14, 16, 18]) {
+        await confirmedSession(t, { instrumentId: instrument.id, configuration: configs.opa_signal, who, startsAt: `${day}T${hour}:00:00Z`, bookedHours: 1, actualEnd: `${day}T${hour}:40:00Z`, confirmedBy: people.financeUser.id });
+      }
+    }
+    const opened = await people.finance.post('/api/billing/periods').send({ month });
+    const periodId = opened.body.period.id as string;
+    expect(opened.body.preview.accounts).toHaveLength(bookers.length);
+
+    fake.knobs.set({ latencyMs: 15 });
+    try {
+      const close = await people.finance.post(`/api/billing/periods/${periodId}/close`).send({});
+      expect(close.status).toBe(202);
+      expect(await finishedJob(people.finance, close.body.job.id)).toMatchObject({ status: 'completed', done: bookers.length, total: bookers.length, errors: [] });
+    } finally {
+      fake.knobs.set({ latencyMs: 0 });
+    }
+
+    const db = t.api.ctx.db;
+    const ours: { account_id: string; n: number; total: string }[] = await db.query(`SELECT account_id, count(*)::int AS n, sum(total_minor)::text AS total FROM invoices WHERE period_id = $1 GROUP BY account_id`, [periodId]);
+    expect(ours).toHaveLength(bookers.length);
+    // By hand: 40 min rounds up to 45 min; three sessions × ¾ h × $110 (academic) / $260 (industry) / $60 (internal).
+    const perAccount = { external_academic: 24_750, industry: 58_500, internal: 13_500 };
+    for (const [i, who] of bookers.entries()) {
+      expect(ours.find((r) => r.account_id === who.account.id)).toEqual({ account_id: who.account.id, n: 1, total: String(perAccount[kinds[i % 3]!]) });
+    }
+    const external = bookers.filter((_, i) => kinds[i % 3] !== 'internal');
+    const invoices: Stripe.Invoice[] = [];
+    for await (const inv of stripe.invoices.list({ limit: 100 })) if (inv.metadata?.femtoslot_period === periodId) invoices.push(inv);
+    expect(invoices.map((i) => i.metadata!.femtoslot_account).sort()).toEqual(external.map((b) => b.account.id).sort());
+    for (const inv of invoices) expect((await stripe.invoices.listLineItems(inv.id!, { limit: 100 })).data).toHaveLength(3);
+    const journal: { account_id: string; n: number; keys: number; total: string }[] = await db.query(
+      `SELECT account_id, count(*)::int AS n, count(DISTINCT line_key)::int AS keys, sum(amount_minor)::text AS total FROM journal_lines WHERE period_id = $1 GROUP BY account_id`, [periodId]);
+    expect(journal.map((j) => j.account_id).sort()).toEqual(bookers.filter((_, i) => kinds[i % 3] === 'internal').map((b) => b.account.id).sort());
+    for (const j of journal) expect(j).toMatchObject({ n: 3, keys: 3, total: '13500' });
+  });
+
+  it('when Stripe refuses half its calls with 429 (rate limited), then the close waits and repeats them and finishes in one run with one invoice', async () => {
+    const { fake, stripe, t } = w;
+    const month = '2026-06';
+    const people = await financeAgent(t);
+    await monthRateCard(people.finance, month);
+    const { instrument, configs } = await makeInstrument(t);
+    // One external account, so its calls, and the fake's seeded draws, come in one fixed order.
+    const industry = await makeBooker(t, { kind: 'industry' });
+    await confirmedSession(t, { instrumentId: instrument.id, configuration: configs.opa_signal, who: industry, startsAt: `${month}-09T13:00:00Z`, bookedHours: 2, actualEnd: `${month}-09T15:00:00Z`, confirmedBy: people.financeUser.id });
+    const opened = await people.finance.post('/api/billing/periods').send({ month });
+    const periodId = opened.body.period.id as string;
+
+    fake.knobs.set({ errorRate: 0.5, errorKind: 'rate_limit', seed: 7 });
+    try {
+      const close = await people.finance.post(`/api/billing/periods/${periodId}/close`).send({});
+      expect(await finishedJob(people.finance, close.body.job.id)).toMatchObject({ status: 'completed', done: 1, total: 1, errors: [] });
+    } finally {
+      fake.knobs.set({ errorRate: 0 });
+    }
+    const ours: Stripe.Invoice[] = [];
+    for await (const inv of stripe.invoices.list({ limit: 100 })) if (inv.metadata?.femtoslot_period === periodId) ours.push(inv);
+    expect(ours).toHaveLength(1);
+    // By hand: 2 h × $260 = $520.00, in one line.
+    expect(ours[0]!.total).toBe(52_000);
+    expect((await stripe.invoices.listLineItems(ours[0]!.id!, { limit: 100 })).data).toHaveLength(1);
   });
 
   it('when a billed session is logged again, then it is refused as locked (409 log_locked)', async () => {

@@ -39,6 +39,29 @@ describe('billing period preview', () => {
     expect(again.body.period.id).toBe(r.body.period.id);
   });
 
+  it('when the rate card charges a share of the changeover, then each session carries the changeover from the session before it on its source', async () => {
+    const { t } = w;
+    const { finance, financeUser } = await financeAgent(t);
+    await monthRateCard(finance, '2026-03', { changeoverSharePercent: 50 });
+    const { instrument, configs } = await makeInstrument(t);
+    const academic = await makeBooker(t, { kind: 'external_academic' });
+    const by = financeUser.id;
+    await confirmedSession(t, { instrumentId: instrument.id, configuration: configs.opa_signal, who: academic, startsAt: '2026-03-10T13:00:00Z', bookedHours: 2, actualEnd: '2026-03-10T15:00:00Z', confirmedBy: by });
+    const second = await confirmedSession(t, { instrumentId: instrument.id, configuration: configs.dfg, who: academic, startsAt: '2026-03-10T16:00:00Z', bookedHours: 2, actualEnd: '2026-03-10T18:00:00Z', confirmedBy: by });
+
+    const r = await finance.post('/api/billing/periods').send({ month: '2026-03' });
+    expect(r.status).toBe(200);
+    const lines = r.body.preview.accounts.find((a: { accountId: string }) => a.accountId === academic.account.id).lines as { kind: string; bookingId: string; minutes: number; amountMinor: number }[];
+    // By hand, from the changeover model makeInstrument stores (common practice figures, not a published source):
+    // OPA signal → DFG is 45 min base + 5 min pulse check = 50 min; 50 % × 50/60 h × $137.50 = $57.2917 → $57.29.
+    // The first session has nothing before it on this source, so it carries no changeover line.
+    expect(lines.map((l) => [l.kind, l.minutes, l.amountMinor])).toEqual([['usage', 120, 22_000], ['usage', 120, 27_500], ['changeover', 50, 5_729]]);
+    expect(lines[2]!.bookingId).toBe(second.booking.id);
+    // The single-booking price preview reads the same predecessor.
+    const single = await finance.post('/api/rate-cards/preview').send({ bookingId: second.booking.id });
+    expect(single.body.lines.map((l: { kind: string; amountMinor: number }) => [l.kind, l.amountMinor])).toEqual([['usage', 27_500], ['changeover', 5_729]]);
+  });
+
   it('when finance asks what a booking would cost, then the rate-card preview explains its lines', async () => {
     const { t } = w;
     const { finance, financeUser } = await financeAgent(t);
