@@ -154,14 +154,17 @@ function clusterPids(pgDataDir: string): number[] {
  * CPU seconds the API process and the bench PostgreSQL cluster spent while `fn` ran. Backends that exit during the
  * run take their time with them, so the PostgreSQL figure is a lower bound (the pools keep theirs open).
  */
-export async function measureCpu<T>(apiPid: number, pgDataDir: string | undefined, fn: () => Promise<T>): Promise<{ out: T; apiSeconds: number; pgSeconds: number }> {
+export async function measureCpu<T>(apiPid: number, pgDataDir: string | undefined, fn: () => Promise<T>): Promise<{ out: T; apiSeconds: number; pgSeconds: number; loadSeconds: number }> {
+  const selfBefore = process.cpuUsage();
   const pgBefore = new Map((pgDataDir ? clusterPids(pgDataDir) : []).map((p) => [p, cpuOfPid(p)]));
   const apiBefore = cpuOfPid(apiPid);
   const out = await fn();
   const apiSeconds = cpuOfPid(apiPid) - apiBefore;
   let pgSeconds = 0;
   for (const p of pgDataDir ? clusterPids(pgDataDir) : []) pgSeconds += cpuOfPid(p) - (pgBefore.get(p) ?? 0);
-  return { out, apiSeconds, pgSeconds: pgDataDir ? pgSeconds : NaN };
+  const self = process.cpuUsage(selfBefore);
+  // This process is the load generator (autocannon) and shares the same two cores.
+  return { out, apiSeconds, pgSeconds: pgDataDir ? pgSeconds : NaN, loadSeconds: (self.user + self.system) / 1e6 };
 }
 
 /** Resident memory of a process in MB from /proc/<pid>/status (VmRSS now, VmHWM the peak since start or reset). */
