@@ -48,7 +48,8 @@ export function MaintenanceForm(props: MaintenanceFormProps) {
 }
 
 function MaintenanceFormBody({ onClose, timeZone, instruments, initial, existing }: MaintenanceFormProps) {
-  const startsAt = existing?.startsAt ?? initial.startsAt ?? new Date(Date.now() + 86_400_000).toISOString();
+  // Same time tomorrow, on the hour (as the request form): nobody plans maintenance for 21:02.
+  const startsAt = existing?.startsAt ?? initial.startsAt ?? new Date(Math.floor((Date.now() + 86_400_000) / 3_600_000) * 3_600_000).toISOString();
   const endsAt = existing?.endsAt ?? initial.endsAt ?? new Date(new Date(startsAt).getTime() + 4 * 3_600_000).toISOString();
   const start = instantToFields(startsAt, timeZone);
   const end = instantToFields(endsAt, timeZone);
