@@ -74,8 +74,11 @@ export async function loadInstrumentTimeline(m: EntityManager, instrumentId: str
 const BLOCK_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
   'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'created_by', 'alternatives',
   'rebooked_as', 'displaced_by', 'decided_by', 'decided_at', 'cancelled_by', 'cancelled_at', 'sequence', 'created_at', 'updated_at'];
+/** What the calendar's DTOs read: the week query leaves out the bookkeeping columns (fewer timestamps to parse). */
+const CALENDAR_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
+  'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'alternatives', 'rebooked_as'];
 /** The block's columns for a raw select; numeric wavelengths as float8 so they arrive as numbers. */
-const blockColumns = (alias: string) => BLOCK_COLUMN_NAMES
+const blockColumns = (alias: string, names = BLOCK_COLUMN_NAMES) => names
   .map((c) => (c.startsWith('target_') ? `${alias}.${c}::float8 AS ${c}` : `${alias}.${c}`)).join(', ');
 
 type BlockRow = Record<string, unknown>;
@@ -96,7 +99,7 @@ async function selectBlocks(m: EntityManager, from: Date, to: Date, instrumentId
   const names = withNames ? ', u.name AS user_name, a.name AS account_name' : '';
   const joins = withNames ? 'LEFT JOIN users u ON u.id = b.user_id LEFT JOIN accounts a ON a.id = b.account_id' : '';
   return preparedQuery(m, `blocks${withNames ? '-named' : ''}${instrumentId ? '-instrument' : ''}`,
-    `SELECT ${blockColumns('b')}${names} FROM timeline_blocks b ${joins}
+    `SELECT ${blockColumns('b', withNames ? CALENDAR_COLUMN_NAMES : BLOCK_COLUMN_NAMES)}${names} FROM timeline_blocks b ${joins}
       WHERE b.starts_at < $2 AND b.ends_at > $1 AND b.status = ANY($3::text[]) ${instrumentId ? 'AND b.instrument_id = $4' : ''}
       ORDER BY b.starts_at, b.id`,
     instrumentId ? [from, to, [...occupyingStatuses], instrumentId] : [from, to, [...occupyingStatuses]],
@@ -108,7 +111,10 @@ export async function occupyingBlocks(m: EntityManager, from: Date, to: Date, in
   return (await selectBlocks(m, from, to, instrumentId, false)).map(blockOf);
 }
 
-/** The same with the owner's and the account's names, joined in the one statement (the calendar's week query). */
+/**
+ * The calendar's week query: the blocks with the owner's and the account's names joined in, in one statement, and
+ * only the columns the calendar's DTOs read (the rest of each entity is left undefined).
+ */
 export async function occupyingBlocksNamed(m: EntityManager, from: Date, to: Date, instrumentId?: string) {
   const rows = await selectBlocks(m, from, to, instrumentId, true);
   const users = new Map<string, string>();
