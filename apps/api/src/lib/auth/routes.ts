@@ -11,6 +11,8 @@ export interface RouteDef {
   access: Access;
   /** Whether a record of another organisation is refused or redacted (documents the rule for the matrix). */
   scope?: 'organisation' | 'facility';
+  /** With scope 'organisation' and an `:id`: what the id names, so the security suite can try another organisation's. */
+  owner?: 'booking' | 'usage_log' | 'attachment' | 'invoice' | 'account';
   before?: RequestHandler[];
   handler: (req: Request, res: Response) => Promise<void> | void;
 }

@@ -38,7 +38,7 @@ function accountRequestRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => { res.status(201).json({ account: await setup.create(currentUser(req), req.body, req.file, String(req.id)) }); },
     },
     {
-      method: 'post', path: '/accounts/:id/approve', access: ['pi', 'staff'], scope: 'organisation',
+      method: 'post', path: '/accounts/:id/approve', access: ['pi', 'staff'], scope: 'organisation', owner: 'account',
       handler: async (req, res) => { res.json({ account: await setup.approve(currentUser(req), param(req, 'id'), String(req.id)) }); },
     },
   ];

@@ -13,11 +13,11 @@ export function attachmentsRoutes(ctx: AppContext): RouteDef[] {
   const loggers = ['collaborator', 'member', 'pi', 'staff'] as const;
   return [
     {
-      method: 'post', path: '/bookings/:id/attachments', access: loggers, scope: 'organisation', before: [upload.single('file')],
+      method: 'post', path: '/bookings/:id/attachments', access: loggers, scope: 'organisation', owner: 'booking', before: [upload.single('file')],
       handler: async (req, res) => { res.status(201).json({ attachment: toAttachmentDto(await s.upload(currentUser(req), param(req, 'id'), req.file)) }); },
     },
     {
-      method: 'post', path: '/usage/:id/attachments', access: loggers, scope: 'organisation', before: [upload.single('file')],
+      method: 'post', path: '/usage/:id/attachments', access: loggers, scope: 'organisation', owner: 'usage_log', before: [upload.single('file')],
       handler: async (req, res) => {
         const log = await ctx.db.getRepository(UsageLog).findOneBy({ id: param(req, 'id') });
         if (!log) throw new AppError('not_found', 'Session log was not found', 404);
@@ -27,7 +27,7 @@ export function attachmentsRoutes(ctx: AppContext): RouteDef[] {
       },
     },
     {
-      method: 'get', path: '/attachments/:id', access: 'signed_in', scope: 'organisation',
+      method: 'get', path: '/attachments/:id', access: 'signed_in', scope: 'organisation', owner: 'attachment',
       handler: async (req, res) => {
         const { attachment, filePath } = await s.forDownload(currentUser(req), param(req, 'id'));
         res.set('Content-Type', attachment.contentType);

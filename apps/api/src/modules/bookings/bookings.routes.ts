@@ -28,7 +28,7 @@ export function bookingsRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => { res.status(201).json(await s.create(currentUser(req), createBookingInputSchema.parse(req.body), rid(req))); },
     },
     {
-      method: 'get', path: '/bookings/:id', access: 'signed_in', scope: 'organisation',
+      method: 'get', path: '/bookings/:id', access: 'signed_in', scope: 'organisation', owner: 'booking',
       handler: async (req, res) => { res.json(await s.get(currentUser(req), param(req, 'id'))); },
     },
     {
@@ -43,7 +43,7 @@ export function bookingsRoutes(ctx: AppContext): RouteDef[] {
       },
     },
     {
-      method: 'post', path: '/bookings/:id/cancel', access: ['collaborator', 'member', 'pi', 'staff'], scope: 'organisation',
+      method: 'post', path: '/bookings/:id/cancel', access: ['collaborator', 'member', 'pi', 'staff'], scope: 'organisation', owner: 'booking',
       handler: async (req, res) => {
         const { reason } = cancelBookingInputSchema.parse(req.body ?? {});
         res.json({ booking: await s.cancel(currentUser(req), param(req, 'id'), reason ?? null, rid(req)) });

@@ -21,13 +21,13 @@ export function invoicesRoutes(ctx: AppContext): RouteDef[] {
       handler: async (_req, res) => { res.type('text/csv; charset=utf-8').attachment('femtoslot-journals.csv').send(await s.journalsCsv()); },
     },
     {
-      method: 'get', path: '/invoices/:id.pdf', access: viewers, scope: 'organisation',
+      method: 'get', path: '/invoices/:id.pdf', access: viewers, scope: 'organisation', owner: 'invoice',
       handler: async (req, res) => {
         const inv = await s.one(currentUser(req), param(req, 'id'));
         const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
         res.type('application/pdf').attachment(`${inv.number}.pdf`).send(await renderInvoicePdf(inv, facility.name));
       },
     },
-    { method: 'get', path: '/invoices/:id', access: viewers, scope: 'organisation', handler: async (req, res) => { res.json({ invoice: await s.one(currentUser(req), param(req, 'id')) }); } },
+    { method: 'get', path: '/invoices/:id', access: viewers, scope: 'organisation', owner: 'invoice', handler: async (req, res) => { res.json({ invoice: await s.one(currentUser(req), param(req, 'id')) }); } },
   ];
 }

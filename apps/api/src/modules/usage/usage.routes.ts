@@ -15,9 +15,9 @@ export function usageRoutes(ctx: AppContext): RouteDef[] {
         res.json({ sessions: await s.sessions(currentUser(req), scope) });
       },
     },
-    { method: 'get', path: '/bookings/:id/usage', access: [...loggers, 'finance', 'admin'], scope: 'organisation', handler: async (req, res) => { res.json(await s.get(currentUser(req), param(req, 'id'))); } },
+    { method: 'get', path: '/bookings/:id/usage', access: [...loggers, 'finance', 'admin'], scope: 'organisation', owner: 'booking', handler: async (req, res) => { res.json(await s.get(currentUser(req), param(req, 'id'))); } },
     {
-      method: 'post', path: '/bookings/:id/usage', access: loggers, scope: 'organisation',
+      method: 'post', path: '/bookings/:id/usage', access: loggers, scope: 'organisation', owner: 'booking',
       handler: async (req, res) => { res.json({ log: await s.save(currentUser(req), param(req, 'id'), usageLogInputSchema.parse(req.body), String(req.id)) }); },
     },
     {
