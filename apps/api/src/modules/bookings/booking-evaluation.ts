@@ -10,7 +10,7 @@ import type { Configuration } from '../instruments/configuration.entity';
 import type { Organisation } from '../organisations/organisation.entity';
 import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
-import { activeBlocksBetween, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
+import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
 
@@ -123,7 +123,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   let check: TimelineCheck | null = null;
   if (configuration && feasibility?.feasible && req.endsAt > req.startsAt) {
     const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
-    const blocks = await activeBlocksBetween(m, req.instrumentId, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR));
+    const blocks = await occupyingBlocks(m, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR), req.instrumentId);
     const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
     check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.parsedModel, horizonEnd });
     const details = {

@@ -60,9 +60,8 @@ export async function oneAtATimePerInstrument<T>(instrumentId: string, fn: () =>
   }
 }
 
-/** The same, read straight from the tables (for batch work that does not hold a reference cache). */
-export async function loadInstrumentTimeline(m: EntityManager, instrumentId: string, { lock = false } = {}): Promise<InstrumentTimeline> {
-  if (lock) await m.query('SELECT id FROM instruments WHERE id = $1 FOR UPDATE', [instrumentId]);
+/** The same, read straight from the tables (for batch work and checks that hold no reference cache); no lock. */
+export async function loadInstrumentTimeline(m: EntityManager, instrumentId: string): Promise<InstrumentTimeline> {
   const instrument = await m.getRepository(Instrument).findOne({ where: { id: instrumentId, active: true } });
   if (!instrument) throw notFound('Instrument');
   const configs = await m.getRepository(Configuration).find({ where: { instrumentId } });
@@ -71,12 +70,11 @@ export async function loadInstrumentTimeline(m: EntityManager, instrumentId: str
   return { instrument, configurations: new Map(configs.map((c) => [c.id, c])), model, parsedModel: parseChangeoverModel(model) };
 }
 
-const BLOCK_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
-  'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'created_by', 'alternatives',
-  'rebooked_as', 'displaced_by', 'decided_by', 'decided_at', 'cancelled_by', 'cancelled_at', 'sequence', 'created_at', 'updated_at'];
 /** What the calendar's DTOs read: the week query leaves out the bookkeeping columns (fewer timestamps to parse). */
 const CALENDAR_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
   'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'alternatives', 'rebooked_as'];
+const BLOCK_COLUMN_NAMES = [...CALENDAR_COLUMN_NAMES, 'created_by', 'displaced_by', 'decided_by', 'decided_at', 'cancelled_by', 'cancelled_at',
+  'sequence', 'created_at', 'updated_at'];
 /** The block's columns for a raw select; numeric wavelengths as float8 so they arrive as numbers. */
 const blockColumns = (alias: string, names = BLOCK_COLUMN_NAMES) => names
   .map((c) => (c.startsWith('target_') ? `${alias}.${c}::float8 AS ${c}` : `${alias}.${c}`)).join(', ');
@@ -141,10 +139,6 @@ export async function insertBooking(m: EntityManager, v: NewBooking): Promise<Ti
       v.purpose, v.createdBy, v.decidedBy, v.decidedAt],
   );
   return blockOf(rows[0]!);
-}
-
-export async function activeBlocksBetween(m: EntityManager, instrumentId: string, from: Date, to: Date): Promise<TimelineBlock[]> {
-  return occupyingBlocks(m, from, to, instrumentId);
 }
 
 export function toEngineBlocks(blocks: TimelineBlock[], configurations: Map<string, Configuration>): TimelineBlockInput[] {

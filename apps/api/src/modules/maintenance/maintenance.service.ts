@@ -5,12 +5,11 @@ import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { AppError, notFound } from '../../lib/errors/app-error';
 import { recordAudit } from '../audit/audit.service';
-import { FacilitySettings } from '../facility/facility-settings.entity';
 import { queueBookingMail } from '../bookings/booking-mail';
 import { auditSnapshot, toBookingDto, toMaintenanceDto } from '../bookings/booking.dto';
 import { loadLookups } from '../bookings/lookups';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { activeBlocksBetween, loadInstrumentTimeline, stateOf, toEngineBlocks } from '../bookings/timeline.repository';
+import { occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
 
 const DAY = 86_400_000;
 
@@ -20,7 +19,7 @@ export function maintenanceService(ctx: AppContext) {
    * caller's transaction, and offers each owner three free slots of the same length and configuration.
    */
   async function displaceUnder(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; startsAt: Date; endsAt: Date; reason: string }, requestId?: string) {
-    const timeline = await loadInstrumentTimeline(m, window.instrumentId, { lock: true });
+    const { timeline } = await timelineOf(ctx.reference, m, window.instrumentId, { lock: true });
     const warmupEnd = new Date(window.endsAt.getTime() + timeline.model.warmupAfterMaintenanceMinutes * 60_000);
     const victims = await m.getRepository(TimelineBlock).find({
       where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(warmupEnd), endsAt: MoreThan(window.startsAt) },
@@ -43,11 +42,10 @@ export function maintenanceService(ctx: AppContext) {
 
   async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
     if (victims.length === 0) return;
-    const timeline = await loadInstrumentTimeline(m, instrumentId);
-    const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+    const { timeline, reference: { facility } } = await timelineOf(ctx.reference, m, instrumentId);
     const now = Date.now();
     const horizonEnd = new Date(now + facility.policies.horizonDays * DAY);
-    const blocks = toEngineBlocks(await activeBlocksBetween(m, instrumentId, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY)), timeline.configurations);
+    const blocks = toEngineBlocks(await occupyingBlocks(m, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY), instrumentId), timeline.configurations);
     for (const v of victims) {
       const state = stateOf(v, timeline.configurations);
       const duration = v.endsAt.getTime() - v.startsAt.getTime();

@@ -9,7 +9,7 @@ import { queueBookingMail } from '../bookings/booking-mail';
 import { auditSnapshot, toBookingDto } from '../bookings/booking.dto';
 import { loadLookups } from '../bookings/lookups';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { activeBlocksBetween, loadInstrumentTimeline, stateOf, toEngineBlocks } from '../bookings/timeline.repository';
+import { occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
 
 export interface AdHocRequest {
   id: string;
@@ -46,8 +46,8 @@ export function plannerService(ctx: AppContext) {
   /** Plans hypothetical requests around the day's fixed blocks (maintenance and existing bookings). */
   async function planAdHoc(input: { instrumentId: string; date: string; requests: AdHocRequest[] }) {
     const { dayStart, dayEnd } = await dayBounds(input.date);
-    const t = await loadInstrumentTimeline(ctx.db.manager, input.instrumentId);
-    const fixed = toEngineBlocks(await activeBlocksBetween(ctx.db.manager, input.instrumentId, dayStart, dayEnd), t.configurations);
+    const { timeline: t } = await timelineOf(ctx.reference, ctx.db.manager, input.instrumentId);
+    const fixed = toEngineBlocks(await occupyingBlocks(ctx.db.manager, dayStart, dayEnd, input.instrumentId), t.configurations);
     const requests = input.requests.map((r) => {
       const c = t.configurations.get(r.configurationId);
       if (!c) throw new AppError('out_of_range', `Configuration ${r.configurationId} does not belong to this instrument`, 422);
@@ -59,8 +59,8 @@ export function plannerService(ctx: AppContext) {
   /** The day's own bookings as flexible requests (each may shift by flexMinutes), maintenance fixed. */
   async function propose(input: { instrumentId: string; date: string; flexMinutes: number }) {
     const { dayStart, dayEnd } = await dayBounds(input.date);
-    const t = await loadInstrumentTimeline(ctx.db.manager, input.instrumentId);
-    const blocks = await activeBlocksBetween(ctx.db.manager, input.instrumentId, dayStart, dayEnd);
+    const { timeline: t } = await timelineOf(ctx.reference, ctx.db.manager, input.instrumentId);
+    const blocks = await occupyingBlocks(ctx.db.manager, dayStart, dayEnd, input.instrumentId);
     const now = Date.now();
     const movable = blocks.filter((b) => b.kind === 'booking' && (b.status === 'approved' || b.status === 'requested') && b.startsAt.getTime() > now && b.startsAt >= dayStart && b.endsAt <= dayEnd);
     const fixed = blocks.filter((b) => !movable.includes(b));
@@ -77,7 +77,7 @@ export function plannerService(ctx: AppContext) {
   /** Moves the bookings as planned in one transaction; the overlap constraint is checked at commit, the changeover here. */
   async function apply(actor: SessionUser, input: { instrumentId: string; date: string; order: { bookingId: string; startsAt: string; endsAt: string }[] }, requestId?: string) {
     return ctx.db.transaction(async (m) => {
-      const t = await loadInstrumentTimeline(m, input.instrumentId, { lock: true });
+      const { timeline: t } = await timelineOf(ctx.reference, m, input.instrumentId, { lock: true });
       await m.query('SET CONSTRAINTS timeline_blocks_no_overlap DEFERRED');
       const rows = await m.getRepository(TimelineBlock).find({ where: { id: In(input.order.map((o) => o.bookingId)), instrumentId: input.instrumentId, kind: 'booking' } });
       if (rows.length !== input.order.length) throw new AppError('not_found', 'Some bookings in the plan do not exist on this instrument', 404);
@@ -96,7 +96,7 @@ export function plannerService(ctx: AppContext) {
         moved.push(b);
       }
       const { dayStart, dayEnd } = await dayBounds(input.date);
-      const all = toEngineBlocks(await activeBlocksBetween(m, input.instrumentId, new Date(dayStart.getTime() - 86_400_000), new Date(dayEnd.getTime() + 86_400_000)), t.configurations);
+      const all = toEngineBlocks(await occupyingBlocks(m, new Date(dayStart.getTime() - 86_400_000), new Date(dayEnd.getTime() + 86_400_000), input.instrumentId), t.configurations);
       for (const b of rows) {
         const c = checkTimeline(all, { id: b.id, start: b.startsAt, end: b.endsAt, state: stateOf(b, t.configurations)! }, { model: t.model });
         if (!c.ok) throw new AppError(c.overlaps.length ? 'overlap' : 'changeover_gap', 'The plan no longer fits the timeline (it changed since the proposal); run the planner again', 409, { bookingId: b.id, before: c.before, after: c.after });

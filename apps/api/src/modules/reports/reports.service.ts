@@ -1,9 +1,9 @@
-import { minutesNeededAfterBlock, parseChangeoverModel, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
+import { minutesNeededAfterBlock, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { loadInstrumentTimeline, stateOf } from '../bookings/timeline.repository';
+import { stateOf, timelineOf } from '../bookings/timeline.repository';
 
 export interface ReportQuery {
   from: string;
@@ -92,8 +92,8 @@ export function reportsService(ctx: AppContext) {
     const byInstrument = new Map<string, TimelineBlock[]>();
     for (const b of blocks) byInstrument.set(b.instrumentId, [...(byInstrument.get(b.instrumentId) ?? []), b]);
     for (const [instrumentId, list] of byInstrument) {
-      const t = await loadInstrumentTimeline(ctx.db.manager, instrumentId);
-      const model = parseChangeoverModel(t.model);
+      const { timeline: t } = await timelineOf(ctx.reference, ctx.db.manager, instrumentId);
+      const model = t.parsedModel;
       const sums = new Map<string, number>();
       for (let i = 1; i < list.length; i++) {
         const next = list[i]!;
