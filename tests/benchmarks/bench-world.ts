@@ -70,8 +70,8 @@ export async function seedBenchWorld(databaseUrl: string, now = new Date()): Pro
     await c.query(`INSERT INTO instruments (name, kind, description, pump_nm, retune_minutes_per_nm, warmup_after_maintenance_minutes, pulse_check_minutes, default_changeover_minutes)
       SELECT 'Bench source ' || lpad(g::text, 2, '0'), 'source', 'Invented for the benchmark', 800, $1, $2, $3, $4 FROM generate_series(1, $5) g`,
     [m.retuneMinutesPerNm, m.warmupAfterMaintenanceMinutes, m.pulseCheckMinutes, m.defaultBaseMinutes, INSTRUMENTS]);
-    await c.query(`INSERT INTO configurations (instrument_id, key, name, output_kind, min_nm, max_nm, default_nm, rate_class, required_od, retune_minutes_per_nm)
-      SELECT i.id, a.key, a.name, a.output_kind, a.min_nm, a.max_nm, a.default_nm, a.rate_class, a.required_od, a.retune_minutes_per_nm
+    await c.query(`INSERT INTO configurations (instrument_id, key, name, output_kind, min_nm, max_nm, default_nm, rate_class, required_od_bands, retune_minutes_per_nm)
+      SELECT i.id, a.key, a.name, a.output_kind, a.min_nm, a.max_nm, a.default_nm, a.rate_class, a.required_od_bands, a.retune_minutes_per_nm
       FROM instruments i CROSS JOIN configurations a WHERE i.name LIKE 'Bench source %' AND a.instrument_id = $1`, [aurora.id]);
     await c.query(`INSERT INTO changeover_pairs (instrument_id, from_configuration_id, to_configuration_id, base_minutes)
       SELECT i.id, fi.id, ti.id, p.base_minutes FROM changeover_pairs p

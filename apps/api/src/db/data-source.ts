@@ -53,3 +53,7 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Required OD per wavelength band, per configuration.
+import { RequiredOdBands1765700000000 } from './migrations/1765700000000-required-od-bands';
+(migrations as unknown as (new () => object)[]).push(RequiredOdBands1765700000000);

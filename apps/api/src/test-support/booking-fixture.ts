@@ -26,7 +26,7 @@ export async function makeInstrument(t: TestApi) {
   for (const c of demoConfigurations) {
     configs[c.key] = await db.getRepository(Configuration).save({
       instrumentId: instrument.id, key: c.key, name: c.name, outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm, defaultNm: c.defaultNm,
-      rateClass: c.rateClass, requiredOd: c.requiredOd, retuneMinutesPerNm: m.retuneMinutesPerNmByConfiguration?.[c.key] ?? null,
+      rateClass: c.rateClass, requiredOdBands: [...c.requiredOdBands], retuneMinutesPerNm: m.retuneMinutesPerNmByConfiguration?.[c.key] ?? null,
     });
   }
   for (const p of m.pairs) {

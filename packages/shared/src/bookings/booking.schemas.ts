@@ -139,7 +139,9 @@ export interface BookingCheckDto {
   problems: { code: string; message: string; details?: unknown }[];
   derived: Record<string, { minNm: number; maxNm: number }>;
   onTable: { role: string; minNm: number; maxNm: number }[];
-  requiredOd: number;
+  /** Per wavelength on the table: the OD the laser-safety officer requires there (null: none set) and the eyewear rated for it. */
+  odByWavelength: { role: string; minNm: number; maxNm: number; requiredOd: number | null; eyewear: { id: string; label: string }[] }[];
+  /** The eyewear rated for every wavelength on the table. */
   eyewear: { id: string; label: string }[];
   timeline: { before: NeighbourCheckDto | null; after: NeighbourCheckDto | null; overlaps: string[]; earliestStart: string | null };
   status: 'requested' | 'approved';

@@ -22,6 +22,17 @@ export const eyewearBandSchema = z
   .refine((b) => b.minNm < b.maxNm, { message: 'minNm must be below maxNm' });
 export type EyewearBand = z.infer<typeof eyewearBandSchema>;
 
+/**
+ * The OD the laser-safety officer requires over a wavelength band for one configuration. Bands may overlap: at a
+ * wavelength the highest OD of the bands covering it applies.
+ */
+export const requiredOdBandSchema = eyewearBandSchema;
+export type RequiredOdBand = EyewearBand;
+export const requiredOdBandsSchema = z
+  .array(requiredOdBandSchema)
+  .min(1, 'Give at least one wavelength band with its required OD')
+  .max(20, 'At most 20 bands');
+
 /** Booking and cancellation rules a facility sets (PRODUCT.md §4 defaults in the demo seed). */
 export interface FacilityPolicies {
   minBookingHours: number;
@@ -47,7 +58,8 @@ export interface ConfigurationDto {
   maxNm: number;
   defaultNm: number;
   rateClass: RateClass;
-  requiredOd: number;
+  /** Required OD per wavelength band, set by the laser-safety officer. */
+  requiredOdBands: RequiredOdBand[];
   retuneMinutesPerNm: number | null;
   active: boolean;
 }

@@ -56,21 +56,23 @@ describe('wavelengths on the table', () => {
 });
 
 describe('eyewear covering', () => {
+  // One required OD over the whole spectrum, as a single band (the per-band rules are in eyewear-bands.test.ts).
+  const everywhere = (od: number) => [{ minNm: 100, maxNm: 20000, od }];
   const nearIr = { id: 'near-ir', bands: [{ minNm: 740, maxNm: 1100, od: 7 }, { minNm: 1100, maxNm: 2200, od: 6 }] };
   const broad = { id: 'broad', bands: [{ minNm: 190, maxNm: 11000, od: 5 }] };
   const visible = { id: 'visible', bands: [{ minNm: 190, maxNm: 532, od: 6 }] };
 
   it('when every wavelength falls in bands at high enough OD, then the item is returned', () => {
-    const result = eyewearCovering([800, 1300, 2080], [nearIr, broad, visible], 6);
+    const result = eyewearCovering([800, 1300, 2080], [nearIr, broad, visible], everywhere(6));
     expect(result.map((e) => e.id)).toEqual(['near-ir']);
   });
 
   it('when one wavelength is outside every band at the OD, then no eyewear covers the table', () => {
-    expect(eyewearCovering([800, 1300, 2400], [nearIr, visible], 6)).toEqual([]);
+    expect(eyewearCovering([800, 1300, 2400], [nearIr, visible], everywhere(6))).toEqual([]);
   });
 
   it('when a band is asked, then two adjoining bands of one item can cover it together', () => {
-    expect(eyewearCovering([{ minNm: 800, maxNm: 2000 }], [nearIr], 6).map((e) => e.id)).toEqual(['near-ir']);
-    expect(eyewearCovering([{ minNm: 800, maxNm: 2000 }], [nearIr], 7)).toEqual([]);
+    expect(eyewearCovering([{ minNm: 800, maxNm: 2000 }], [nearIr], everywhere(6)).map((e) => e.id)).toEqual(['near-ir']);
+    expect(eyewearCovering([{ minNm: 800, maxNm: 2000 }], [nearIr], everywhere(7))).toEqual([]);
   });
 });

@@ -85,7 +85,7 @@ async function seedInstruments(m: EntityManager): Promise<void> {
     for (const c of demoConfigurations) {
       const row = await m.getRepository(Configuration).save({
         instrumentId: instrument.id, key: c.key, name: c.name, outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm,
-        defaultNm: c.defaultNm, rateClass: c.rateClass, requiredOd: c.requiredOd, active: true,
+        defaultNm: c.defaultNm, rateClass: c.rateClass, requiredOdBands: [...c.requiredOdBands], active: true,
         retuneMinutesPerNm: defaultChangeoverModel.retuneMinutesPerNmByConfiguration?.[c.key] ?? null,
       });
       byKey.set(c.key, row.id);

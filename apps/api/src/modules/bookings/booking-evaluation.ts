@@ -1,5 +1,5 @@
 import {
-  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, eyewearCovering, localDate,
+  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, eyewearCoverage, formatNm, localDate, opaRangesOf,
   type BookingCheckDto, type BookingTarget, type TimelineCheck,
 } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
@@ -105,19 +105,23 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   if (!configuration || !configuration.active) {
     problems.push({ code: 'out_of_range', message: 'That configuration does not belong to this instrument', status: 422 });
   } else {
-    feasibility = checkTargetFeasibility(req.target, { outputKind: configuration.outputKind, minNm: configuration.minNm, maxNm: configuration.maxNm, pumpNm: timeline.instrument.pumpNm ?? undefined, name: configuration.name });
-    for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm } });
+    feasibility = checkTargetFeasibility(req.target, {
+      outputKind: configuration.outputKind, minNm: configuration.minNm, maxNm: configuration.maxNm, pumpNm: timeline.instrument.pumpNm ?? undefined,
+      name: configuration.name, opa: opaRangesOf(timeline.configurations.values()),
+    });
+    for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm, ...r.details } });
   }
 
   if (!trained) problems.push({ code: 'training_expired', message: `${req.owner.name} has no laser-safety training valid on ${sessionDate}; renew it with the laser-safety officer before booking`, status: 422 });
 
   let eyewear: EyewearItem[] = [];
+  let odByWavelength: BookingCheckDto['odByWavelength'] = [];
   const onTable = feasibility?.feasible ? feasibility.onTable : [];
   if (configuration && feasibility?.feasible) {
-    eyewear = eyewearCovering(onTable, reference.activeEyewear, configuration.requiredOd);
-    if (eyewear.length === 0) {
-      problems.push({ code: 'no_eyewear', message: `No eyewear on the list covers every wavelength on the table at OD ≥ ${configuration.requiredOd}; ask the laser-safety officer`, status: 422, details: { onTable, requiredOd: configuration.requiredOd } });
-    }
+    const coverage = eyewearCoverage(onTable, configuration.requiredOdBands, reference.activeEyewear);
+    eyewear = coverage.covering;
+    odByWavelength = coverage.wavelengths.map((w) => ({ role: w.role ?? '', minNm: w.minNm, maxNm: w.maxNm, requiredOd: w.requiredOd, eyewear: w.covering.map((e) => ({ id: e.id, label: e.label })) }));
+    if (eyewear.length === 0) problems.push(noEyewearProblem(coverage.wavelengths));
   }
 
   let check: TimelineCheck | null = null;
@@ -155,7 +159,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     problems: problems.map(({ code, message, details }) => ({ code, message, details })),
     derived: feasibility?.derived ?? {},
     onTable: onTable.map((b) => ({ role: b.role, minNm: b.minNm, maxNm: b.maxNm })),
-    requiredOd: configuration?.requiredOd ?? 0,
+    odByWavelength,
     eyewear: eyewear.map((e) => ({ id: e.id, label: e.label })),
     timeline: {
       before: check?.before ?? null, after: check?.after ?? null, overlaps: check?.overlaps ?? [],
@@ -165,6 +169,20 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     cancellationPolicy: describeCancellationPolicy(p),
   };
   return { problems, timeline, reference, configuration, organisation, account, status, check, dto };
+}
+
+const span = (w: { minNm: number; maxNm: number }) => (w.minNm === w.maxNm ? `${formatNm(w.minNm)} nm` : `${formatNm(w.minNm)}–${formatNm(w.maxNm)} nm`);
+
+/** Names each wavelength no listed eyewear is rated for, with the OD the laser-safety officer set there. */
+function noEyewearProblem(wavelengths: ReturnType<typeof eyewearCoverage>['wavelengths']): Problem {
+  const uncovered = wavelengths.filter((w) => w.covering.length === 0);
+  const parts = (uncovered.length ? uncovered : wavelengths).map((w) =>
+    w.requiredOd === null ? `no required OD is set at ${w.unsetNm.map(span).join(', ')}` : `${span(w)} needs OD ≥ ${w.requiredOd}`);
+  return {
+    code: 'no_eyewear', status: 422,
+    message: `No eyewear on the list covers every wavelength on the table at the OD the laser-safety officer set (${parts.join('; ')}); ask the laser-safety officer`,
+    details: { odByWavelength: wavelengths.map((w) => ({ role: w.role, minNm: w.minNm, maxNm: w.maxNm, requiredOd: w.requiredOd, unsetNm: w.unsetNm })) },
+  };
 }
 
 /** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */

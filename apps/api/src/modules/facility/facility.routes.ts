@@ -1,3 +1,4 @@
+import { requiredOdBandsSchema } from '@femtoslot/shared';
 import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
 import { recordAudit } from '../audit/audit.service';
@@ -37,18 +38,18 @@ export function facilityRoutes(ctx: AppContext): RouteDef[] {
       },
     },
     {
-      // The OD is set by the laser-safety officer; staff record it here.
+      // The ODs are set by the laser-safety officer; staff record them here.
       method: 'patch', path: '/configurations/:id', access: ['staff'],
       handler: async (req, res) => {
         const id = param(req, 'id');
-        const input = z.object({ requiredOd: z.number().min(0).max(12) }).parse(req.body);
+        const input = z.object({ requiredOdBands: requiredOdBandsSchema }).parse(req.body);
         const saved = await ctx.db.transaction(async (m) => {
           const row = await m.getRepository(Configuration).findOneBy({ id });
           if (!row) throw notFound('Configuration');
-          const before = { requiredOd: row.requiredOd };
-          row.requiredOd = input.requiredOd;
+          const before = { requiredOdBands: row.requiredOdBands };
+          row.requiredOdBands = input.requiredOdBands;
           await m.getRepository(Configuration).save(row);
-          await recordAudit(m, { actorUserId: currentUser(req).id, action: 'configuration.od_changed', entityType: 'configuration', entityId: id, before, after: { requiredOd: row.requiredOd } });
+          await recordAudit(m, { actorUserId: currentUser(req).id, action: 'configuration.od_changed', entityType: 'configuration', entityId: id, before, after: { requiredOdBands: row.requiredOdBands } });
           return row;
         });
         res.json({ configuration: saved });

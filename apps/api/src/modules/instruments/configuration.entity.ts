@@ -1,5 +1,5 @@
 import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import type { OutputKind, RateClass } from '@femtoslot/shared';
+import type { OutputKind, RateClass, RequiredOdBand } from '@femtoslot/shared';
 import { numericTransformer } from '../../db/column-types';
 
 @Entity('configurations')
@@ -13,7 +13,8 @@ export class Configuration {
   @Column({ name: 'max_nm', type: 'numeric', transformer: numericTransformer }) maxNm: number;
   @Column({ name: 'default_nm', type: 'numeric', transformer: numericTransformer }) defaultNm: number;
   @Column({ name: 'rate_class', type: 'text' }) rateClass: RateClass;
-  @Column({ name: 'required_od', type: 'numeric', transformer: numericTransformer }) requiredOd: number;
+  /** Required OD per wavelength band, set by the laser-safety officer; at a wavelength the highest covering band applies. */
+  @Column({ name: 'required_od_bands', type: 'jsonb' }) requiredOdBands: RequiredOdBand[];
   /** Overrides the instrument's minutes per nm of retune within this output; null uses the instrument's figure. */
   @Column({ name: 'retune_minutes_per_nm', type: 'numeric', nullable: true, transformer: numericTransformer }) retuneMinutesPerNm: number | null;
   @Column({ type: 'boolean', default: true }) active: boolean;

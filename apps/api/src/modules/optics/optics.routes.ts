@@ -1,11 +1,9 @@
-import { analyseAutocorrelation, analyseAutocorrelationCsv, checkTargetFeasibility, describeWavelength, opaMixing, bookingTargetSchema } from '@femtoslot/shared';
+import { analyseAutocorrelation, analyseAutocorrelationCsv, checkTargetFeasibility, describeWavelength, opaMixing, opaRangesOf, bookingTargetSchema } from '@femtoslot/shared';
 import multer from 'multer';
 import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
 import type { RouteDef } from '../../lib/auth/routes';
 import { AppError, notFound } from '../../lib/errors/app-error';
-import { Configuration } from '../instruments/configuration.entity';
-import { Instrument } from '../instruments/instrument.entity';
 
 const mixingQuerySchema = z.object({ pumpNm: z.coerce.number().positive().finite(), signalNm: z.coerce.number().positive().finite() });
 const feasibilityInputSchema = z.intersection(z.object({ configurationId: z.uuid() }), bookingTargetSchema);
@@ -37,12 +35,16 @@ export function opticsRoutes(ctx: AppContext): RouteDef[] {
       method: 'post', path: '/optics/feasibility', access: 'signed_in',
       handler: async (req, res) => {
         const input = feasibilityInputSchema.parse(req.body);
-        const c = await ctx.db.getRepository(Configuration).findOneBy({ id: input.configurationId });
-        if (!c) throw notFound('Configuration');
-        const instrument = await ctx.db.getRepository(Instrument).findOneByOrFail({ id: c.instrumentId });
+        const reference = await ctx.reference.get(ctx.db.manager, req.referenceRevision);
+        const c = reference.configurations.get(input.configurationId);
+        const timeline = c && reference.timelines.get(c.instrumentId);
+        if (!c || !timeline) throw notFound('Configuration');
         const target = 'targetNm' in input ? { targetNm: input.targetNm } : { minNm: input.minNm, maxNm: input.maxNm };
-        const r = checkTargetFeasibility(target, { outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm, pumpNm: instrument.pumpNm ?? undefined, name: c.name });
-        res.json({ ...r, configuration: { id: c.id, name: c.name, minNm: c.minNm, maxNm: c.maxNm, requiredOd: c.requiredOd } });
+        const r = checkTargetFeasibility(target, {
+          outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm, pumpNm: timeline.instrument.pumpNm ?? undefined, name: c.name,
+          opa: opaRangesOf(timeline.configurations.values()),
+        });
+        res.json({ ...r, configuration: { id: c.id, name: c.name, minNm: c.minNm, maxNm: c.maxNm, requiredOdBands: c.requiredOdBands } });
       },
     },
     {

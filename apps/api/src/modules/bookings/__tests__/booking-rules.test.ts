@@ -106,7 +106,7 @@ describe('booking beam time', () => {
 
   it('when no eyewear covers the table at the required OD, then 422 no_eyewear and the check says so too', async () => {
     const { instrument, configs } = await makeInstrument(t);
-    await t.api.ctx.db.getRepository(Configuration).update({ id: configs.dfg!.id }, { requiredOd: 11.5 });
+    await t.api.ctx.db.getRepository(Configuration).update({ id: configs.dfg!.id }, { requiredOdBands: [{ minNm: 700, maxNm: 12000, od: 11.5 }] });
     const me = await makeBooker(t);
     const b = body(instrument.id, configs.dfg!.id, me.account.id, hoursFromNow(30), 2, { targetNm: 5000 });
     const check = await me.agent.post('/api/bookings/check').send(b);
@@ -117,7 +117,7 @@ describe('booking beam time', () => {
     const r = await me.agent.post('/api/bookings').send(b);
     expect(r.status).toBe(422);
     expect(r.body.error.code).toBe('no_eyewear');
-    expect(r.body.error.message).toMatch(/OD ≥ 11.5/);
+    expect(r.body.error.message).toMatch(/needs OD ≥ 11.5/);
   });
 
   it('when the account belongs to another organisation, then 422 account_unusable', async () => {

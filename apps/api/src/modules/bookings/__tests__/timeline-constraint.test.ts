@@ -26,7 +26,7 @@ async function fixture() {
   const account = await a.getRepository(Account).save({ organisationId: org.id, kind: 'cost_centre', name: 'CC', costCentreCode: `CC-${tag}`, status: 'approved' });
   const instrument = await a.getRepository(Instrument).save({ name: `Source ${tag}`, kind: 'source', retuneMinutesPerNm: 0, warmupAfterMaintenanceMinutes: 0, pulseCheckMinutes: 0, defaultChangeoverMinutes: 0 });
   const configuration = await a.getRepository(Configuration).save({
-    instrumentId: instrument.id, key: 'fundamental', name: 'Fundamental', outputKind: 'fundamental', minNm: 780, maxNm: 820, defaultNm: 800, rateClass: 'standard', requiredOd: 7, retuneMinutesPerNm: null,
+    instrumentId: instrument.id, key: 'fundamental', name: 'Fundamental', outputKind: 'fundamental', minNm: 780, maxNm: 820, defaultNm: 800, rateClass: 'standard', requiredOdBands: [{ minNm: 740, maxNm: 1100, od: 7 }], retuneMinutesPerNm: null,
   });
   const booking = (startsAt: string, endsAt: string, status: TimelineBlock['status'] = 'approved') => ({
     instrumentId: instrument.id, kind: 'booking' as const, status, startsAt: new Date(startsAt), endsAt: new Date(endsAt), configurationId: configuration.id,
@@ -84,7 +84,7 @@ describe('one timeline per instrument, enforced by PostgreSQL', () => {
     const bad = a.getRepository(TimelineBlock).insert(booking('2031-08-01T14:00:00Z', '2031-08-01T13:00:00Z'));
     await expect(bad).rejects.toMatchObject({ driverError: { code: '23514' } });
     const err = await a.getRepository(Configuration).insert({
-      instrumentId: instrument.id, key: 'inverted', name: 'x', outputKind: 'shg', minNm: 410, maxNm: 390, defaultNm: 400, rateClass: 'standard', requiredOd: 6,
+      instrumentId: instrument.id, key: 'inverted', name: 'x', outputKind: 'shg', minNm: 410, maxNm: 390, defaultNm: 400, rateClass: 'standard', requiredOdBands: [{ minNm: 380, maxNm: 900, od: 6 }],
     }).catch((e) => e);
     expect(statusOf(err)).toMatchObject({ status: 422, body: { error: { code: 'rule_violation' } } });
   });

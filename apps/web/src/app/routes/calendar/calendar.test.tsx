@@ -7,7 +7,7 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 const org = { id: id(90), name: 'Kestrel Group', kind: 'internal' };
 const staff = { id: id(91), email: 's@x.test', name: 'Sam', role: 'staff', active: true, organisation: org, createdAt: '2026-01-01T00:00:00Z', invitationPending: false };
 const source = id(1);
-const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOd: 5, retuneMinutesPerNm: 0.1 };
+const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOdBands: [{ minNm: 700, maxNm: 3000, od: 5 }], retuneMinutesPerNm: 0.1 };
 const dfg = { ...signal, id: id(14), key: 'dfg', name: 'DFG mid-IR', outputKind: 'dfg', minNm: 2600, maxNm: 11000, defaultNm: 4300 };
 const soon = (hours: number) => new Date(Math.ceil(Date.now() / 3_600_000) * 3_600_000 + hours * 3_600_000).toISOString();
 const detail = { userId: id(92), userName: 'Ida', organisationId: org.id, organisationName: org.name, accountId: id(50), accountName: 'CC-1', purpose: 'Carrier lifetime',
@@ -22,8 +22,13 @@ const booking = (n: number, conf: typeof signal, status: string, withDetail: boo
 });
 
 const checkAnswer = (eyewear: { id: string; label: string }[]) => ({
-  ok: true, problems: [], derived: {}, requiredOd: 5, eyewear, status: 'approved', cancellationPolicy: 'Free until 72 h before.',
+  ok: true, problems: [], derived: {}, eyewear, status: 'approved', cancellationPolicy: 'Free until 72 h before.',
   onTable: [{ role: 'pump_residual', minNm: 800, maxNm: 800 }, { role: 'signal', minNm: 1300, maxNm: 1300 }, { role: 'idler', minNm: 2080, maxNm: 2080 }],
+  odByWavelength: [
+    { role: 'pump_residual', minNm: 800, maxNm: 800, requiredOd: 7, eyewear },
+    { role: 'signal', minNm: 1300, maxNm: 1300, requiredOd: 5, eyewear },
+    { role: 'idler', minNm: 2080, maxNm: 2080, requiredOd: 5, eyewear },
+  ],
   timeline: { before: null, after: null, overlaps: [], earliestStart: null },
 });
 
@@ -79,7 +84,7 @@ describe('beam-time calendar page', () => {
     const calls = api({ eyewear: [] });
     const { el } = await renderApp('/calendar');
     const form = await openRequestForm(el);
-    expect(form.querySelector('[data-testid="no-eyewear"]')?.textContent).toContain('No eyewear on the list covers every wavelength on the table at OD ≥ 5');
+    expect(form.querySelector('[data-testid="no-eyewear"]')?.textContent).toContain('No eyewear on the list is rated at the required OD for every wavelength on the table');
     expect((form.querySelector('[data-testid="submit-request"]') as HTMLButtonElement).disabled).toBe(true);
     // 1.3 µm = 1300 nm (1 µm = 1000 nm); the check goes out in nm
     expect(calls.some((c) => c.startsWith('POST /api/bookings/check') && c.includes('"targetNm":1300'))).toBe(true);
@@ -94,6 +99,9 @@ describe('beam-time calendar page', () => {
     const { el } = await renderApp('/calendar');
     const form = await openRequestForm(el);
     expect(form.querySelector('[data-testid="eyewear-covering"]')?.textContent).toContain('NIR goggles');
+    const pumpRow = form.querySelector<HTMLElement>('[data-testid="od-row"][data-role="pump_residual"]')!;
+    expect(pumpRow.dataset.requiredOd).toBe('7');
+    expect(pumpRow.textContent).toContain('NIR goggles');
     const length = form.querySelector<HTMLElement>('[data-testid="booking-length"]')!.dataset.minutes;
     await act(async () => (form.querySelector('[data-testid="submit-request"]') as HTMLButtonElement).click());
     await tick(10);

@@ -11,7 +11,7 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 const org = { id: id(90), name: 'Kestrel Group', kind: 'internal' };
 const staff = { id: id(91), email: 's@x.test', name: 'Sam', role: 'staff', active: true, organisation: org, createdAt: '2026-01-01T00:00:00Z', invitationPending: false };
 const source = id(1);
-const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOd: 5, retuneMinutesPerNm: 0.1, active: true };
+const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOdBands: [{ minNm: 700, maxNm: 3000, od: 5 }], retuneMinutesPerNm: 0.1, active: true };
 
 const utilisation = {
   rows: [

@@ -12,7 +12,7 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 const org = { id: id(90), name: 'Kestrel Group', kind: 'internal' };
 const person = (role: string) => ({ id: id(91), email: 'p@x.test', name: 'Ida', role, active: true, organisation: org, createdAt: '2026-01-01T00:00:00Z', invitationPending: false });
 const source = id(1);
-const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOd: 5, retuneMinutesPerNm: 0.1, active: true };
+const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOdBands: [{ minNm: 700, maxNm: 3000, od: 5 }], retuneMinutesPerNm: 0.1, active: true };
 const detail = { userId: id(91), userName: 'Ida', organisationId: org.id, organisationName: org.name, accountId: id(50), accountName: 'CC-1', purpose: 'Carrier lifetime',
   targetMinNm: 1300, targetMaxNm: 1300, declineReason: null, cancellationFeePercent: null, alternatives: [], rebookedAs: null, changeoverBeforeMinutes: 10 };
 const booking = (n: number) => ({ id: id(100 + n), instrumentId: source, configurationId: signal.id, configurationKey: 'opa_signal', outputKind: 'opa_signal', status: 'approved',

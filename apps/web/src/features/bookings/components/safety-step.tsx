@@ -1,24 +1,50 @@
-import type { BookingCheckDto, PickerUnit } from '@femtoslot/shared';
+import type { BookingCheckDto, PickerUnit, TableRole } from '@femtoslot/shared';
 import { LaserCaution } from '../../../components/ui/laser-caution';
 import { Notice } from '../../../components/ui/notice';
-import { DerivedWavelengths } from './request-check-panel';
+import { bandText, roleLabels } from './request-check-panel';
 
-/** The safety step of a request: every wavelength on the table and the eyewear that covers all of them. */
+/** Per wavelength on the table: the OD the laser-safety officer requires there and the eyewear rated for it. */
+function OdByWavelength({ rows, unit }: { rows: BookingCheckDto['odByWavelength']; unit: PickerUnit }) {
+  return (
+    <div className="overflow-x-auto rounded-lg border border-line" data-testid="on-table">
+      <table className="w-full text-left text-sm">
+        <caption className="px-3 pt-2.5 pb-1.5 text-left font-semibold">On the table (pump residual included) and the OD each wavelength needs</caption>
+        <thead className="border-y border-line bg-sunk text-xs tracking-wide text-ink-muted uppercase">
+          <tr>
+            <th className="px-3 py-1.5">Output</th>
+            <th className="px-3 py-1.5">Wavelength</th>
+            <th className="px-3 py-1.5">Required OD</th>
+            <th className="px-3 py-1.5">Eyewear rated for it</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((row) => (
+            <tr key={row.role} className="border-b border-line last:border-0" data-testid="od-row" data-role={row.role} data-required-od={row.requiredOd ?? ''}>
+              <td className="px-3 py-1.5 font-semibold">{roleLabels[row.role as TableRole] ?? row.role}</td>
+              <td className="px-3 py-1.5 tabular-nums text-ink-muted">{bandText(row, unit)}</td>
+              <td className="px-3 py-1.5 tabular-nums">{row.requiredOd === null ? <span className="text-danger">not set</span> : `≥ ${row.requiredOd}`}</td>
+              <td className="px-3 py-1.5">
+                {row.eyewear.length ? row.eyewear.map((e) => e.label).join(', ') : <span className="font-semibold text-danger">none on the list</span>}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** The safety step of a request: every wavelength on the table, the OD each needs, and the eyewear that covers all of them. */
 export function SafetyStep({ check, unit }: { check: BookingCheckDto | undefined; unit: PickerUnit }) {
   const wavelengths = check ? check.onTable.flatMap((band) => (band.minNm === band.maxNm ? [band.minNm] : [band.minNm, band.maxNm])) : [];
   const noneCovers = check !== undefined && check.onTable.length > 0 && check.eyewear.length === 0;
   return (
     <div className="space-y-3">
       <LaserCaution wavelengthsNm={wavelengths} />
-      {check && check.onTable.length > 0 && (
-        <div className="rounded-lg border border-line px-3 py-2.5" data-testid="on-table">
-          <p className="mb-1.5 text-sm font-semibold">On the table (pump residual included)</p>
-          <DerivedWavelengths bands={check.onTable} unit={unit} />
-        </div>
-      )}
+      {check && check.odByWavelength.length > 0 && <OdByWavelength rows={check.odByWavelength} unit={unit} />}
       {check && !noneCovers && check.eyewear.length > 0 && (
-        <div data-testid="eyewear-covering" data-required-od={check.requiredOd} className="rounded-lg border border-success/40 bg-success-soft px-3 py-2.5 text-sm">
-          <p className="font-semibold">Eyewear that covers every wavelength above at OD ≥ {check.requiredOd}</p>
+        <div data-testid="eyewear-covering" className="rounded-lg border border-success/40 bg-success-soft px-3 py-2.5 text-sm">
+          <p className="font-semibold">Eyewear rated at the required OD for every wavelength above</p>
           <ul className="mt-1 list-disc pl-5">
             {check.eyewear.map((item) => (
               <li key={item.id} data-eyewear-id={item.id}>
@@ -26,12 +52,15 @@ export function SafetyStep({ check, unit }: { check: BookingCheckDto | undefined
               </li>
             ))}
           </ul>
-          <p className="mt-1.5 text-xs text-ink-muted">The required OD is set by the facility's laser-safety officer.</p>
+          <p className="mt-1.5 text-xs text-ink-muted">
+            The required ODs are set by the facility's laser-safety officer; Femtoslot only compares ratings with them. Follow the officer's
+            instructions and local rules.
+          </p>
         </div>
       )}
       {noneCovers && (
         <Notice tone="danger" testId="no-eyewear" title="This request cannot be sent yet">
-          No eyewear on the list covers every wavelength on the table at OD ≥ {check.requiredOd} — ask the laser-safety officer.
+          No eyewear on the list is rated at the required OD for every wavelength on the table — ask the laser-safety officer.
         </Notice>
       )}
     </div>

@@ -1,11 +1,13 @@
+import { requiredOdBandsSchema } from '@femtoslot/shared';
 import { useState } from 'react';
 import { toast } from 'sonner';
 import { Button } from '../../../components/ui/button';
 import { TableShell } from '../../../components/ui/table-shell';
 import type { Configuration } from '../api/get-configurations';
 import { useUpdateConfiguration } from '../api/update-configuration';
+import { OdBandsField, odBandsText } from './od-bands-field';
 
-/** The minimum eyewear OD per configuration, as the facility's laser-safety officer sets it. */
+/** The minimum eyewear OD per wavelength band and configuration, as the facility's laser-safety officer sets them. */
 export interface RequiredOdTableProps {
   instruments: { id: string; name: string }[];
   configurations: Configuration[];
@@ -18,11 +20,12 @@ export function RequiredOdTable({ instruments, configurations: rows, loading, er
   return (
     <section className="space-y-2" aria-labelledby="required-od-title" data-testid="required-od">
       <h2 id="required-od-title" className="font-semibold">
-        Required optical density per configuration
+        Required optical density per configuration and wavelength band
       </h2>
       <p className="text-sm text-ink-muted">
         Set by the facility's laser-safety officer from the output's power and exposure limits (ANSI Z136.1 / IEC 60825-1). Femtoslot
-        only compares eyewear ratings with these values; it does not compute them.
+        only compares eyewear ratings with these values at every wavelength on the table (where bands overlap, the higher OD
+        applies); it does not compute them.
       </p>
       {error && <p className="text-sm text-danger">{error}</p>}
       <TableShell caption="Required OD per configuration" isEmpty={!loading && !error && rows.length === 0} empty="No configurations yet.">
@@ -31,7 +34,7 @@ export function RequiredOdTable({ instruments, configurations: rows, loading, er
             <th className="px-4 py-2">Configuration</th>
             <th className="px-4 py-2">Instrument</th>
             <th className="px-4 py-2">Tuning range</th>
-            <th className="px-4 py-2">Required OD</th>
+            <th className="px-4 py-2">Required OD per band</th>
           </tr>
         </thead>
         <tbody>
@@ -46,45 +49,34 @@ export function RequiredOdTable({ instruments, configurations: rows, loading, er
 
 function OdRow({ configuration, instrument }: { configuration: Configuration; instrument: string }) {
   const update = useUpdateConfiguration();
-  const [value, setValue] = useState(String(configuration.requiredOd));
-  const parsed = Number(value);
-  const valid = value.trim() !== '' && Number.isFinite(parsed) && parsed >= 0 && parsed <= 12;
-  const changed = valid && parsed !== configuration.requiredOd;
+  const [bands, setBands] = useState(configuration.requiredOdBands);
+  const parsed = requiredOdBandsSchema.safeParse(bands);
+  const changed = parsed.success && JSON.stringify(parsed.data) !== JSON.stringify(configuration.requiredOdBands);
   return (
-    <tr className="border-b border-line last:border-0" data-testid="required-od-row" data-configuration-id={configuration.id}>
+    <tr className="border-b border-line align-top last:border-0" data-testid="required-od-row" data-configuration-id={configuration.id}>
       <td className="px-4 py-2 font-medium">{configuration.name}</td>
       <td className="px-4 py-2 text-ink-muted">{instrument}</td>
       <td className="px-4 py-2 tabular-nums text-ink-muted">
         {configuration.minNm}–{configuration.maxNm} nm
       </td>
-      <td className="px-4 py-2">
-        <div className="flex items-center gap-2">
-          <input
-            type="number"
-            min={0}
-            max={12}
-            step={0.5}
-            aria-label={`Required OD for ${configuration.name}`}
-            name="requiredOd"
-            value={value}
-            onChange={(e) => setValue(e.target.value)}
-            className="w-20 rounded-lg border border-line bg-panel px-2 py-1 text-sm tabular-nums"
-          />
-          <Button
-            size="sm"
-            variant="secondary"
-            disabled={!changed}
-            busy={update.isPending}
-            onClick={() =>
-              update.mutate(
-                { id: configuration.id, requiredOd: parsed },
-                { onSuccess: () => toast.success(`${configuration.name}: OD ≥ ${parsed}`), onError: (e) => toast.error(e.message) },
-              )
-            }
-          >
-            Save
-          </Button>
-        </div>
+      <td className="space-y-1.5 px-4 py-2">
+        <OdBandsField label={`Required OD for ${configuration.name}`} value={bands} onChange={setBands} />
+        {!parsed.success && <p className="text-xs font-semibold text-danger">{parsed.error.issues[0]?.message}</p>}
+        <Button
+          size="sm"
+          variant="secondary"
+          disabled={!changed}
+          busy={update.isPending}
+          onClick={() =>
+            parsed.success &&
+            update.mutate(
+              { id: configuration.id, requiredOdBands: parsed.data },
+              { onSuccess: () => toast.success(`${configuration.name}: ${odBandsText(parsed.data)}`), onError: (e) => toast.error(e.message) },
+            )
+          }
+        >
+          Save
+        </Button>
       </td>
     </tr>
   );
