@@ -99,3 +99,8 @@ export const rateCardKeys = {
   all: ['rate-cards'] as const,
   list: () => [...rateCardKeys.all, 'list'] as const,
 };
+
+export const instrumentAdminKeys = {
+  all: ['instrument-admin'] as const,
+  list: () => [...instrumentAdminKeys.all, 'list'] as const,
+};

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { eyewearBandSchema, type EyewearBand, type RequiredOdBand } from '../facility/facility.schemas';
 import { parseEngineInput } from '../units/engine-error';
+import { tableBands, type TableBandsInput } from './table-wavelengths';
 
 const coverageTargetSchema = z.union([
   z.number().positive(),
@@ -122,4 +123,12 @@ export function eyewearCovering<T extends { bands: EyewearBand[] }>(wavelengths:
   const input = parseEngineInput(eyewearCoveringInputSchema, { wavelengths, eyewearItems, requiredOdBands });
   const table = input.wavelengths.map(asInterval).map(([minNm, maxNm]) => ({ minNm, maxNm }));
   return eyewearCoverage(table, requiredOdBands, eyewearItems).covering;
+}
+
+/**
+ * Wavelengths a configuration can put on the table over its whole tuning range (pump residual and partners
+ * included) that no required-OD band covers: the laser-safety officer must set an OD for every one of them.
+ */
+export function requiredOdGaps(configuration: TableBandsInput, requiredOdBands: RequiredOdBand[]): { minNm: number; maxNm: number }[] {
+  return tableBands(configuration).flatMap((band) => requiredOdProfile(band, requiredOdBands).filter((s) => s.od === null).map(({ minNm, maxNm }) => ({ minNm, maxNm })));
 }

@@ -1,10 +1,5 @@
-import { requiredOdBandsSchema } from '@femtoslot/shared';
-import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
-import { recordAudit } from '../audit/audit.service';
-import { notFound } from '../../lib/errors/app-error';
-import { currentUser, param, type RouteDef } from '../../lib/auth/routes';
-import { Configuration } from '../instruments/configuration.entity';
+import type { RouteDef } from '../../lib/auth/routes';
 
 export function facilityRoutes(ctx: AppContext): RouteDef[] {
   return [
@@ -35,24 +30,6 @@ export function facilityRoutes(ctx: AppContext): RouteDef[] {
           .filter((c) => c.active && (!instrumentId || c.instrumentId === instrumentId))
           .sort((a, b) => a.minNm - b.minNm);
         res.json({ configurations: rows });
-      },
-    },
-    {
-      // The ODs are set by the laser-safety officer; staff record them here.
-      method: 'patch', path: '/configurations/:id', access: ['staff'],
-      handler: async (req, res) => {
-        const id = param(req, 'id');
-        const input = z.object({ requiredOdBands: requiredOdBandsSchema }).parse(req.body);
-        const saved = await ctx.db.transaction(async (m) => {
-          const row = await m.getRepository(Configuration).findOneBy({ id });
-          if (!row) throw notFound('Configuration');
-          const before = { requiredOdBands: row.requiredOdBands };
-          row.requiredOdBands = input.requiredOdBands;
-          await m.getRepository(Configuration).save(row);
-          await recordAudit(m, { actorUserId: currentUser(req).id, action: 'configuration.od_changed', entityType: 'configuration', entityId: id, before, after: { requiredOdBands: row.requiredOdBands } });
-          return row;
-        });
-        res.json({ configuration: saved });
       },
     },
   ];
