@@ -47,7 +47,7 @@ describe('web shell in Chromium', () => {
     try {
       const staff = await staffContext.context.newPage();
       await signInThroughForm(staff, t.api.url, 'staff@harrowpoint.test');
-      expect(await navAreas(staff)).toEqual(['nav-calendar', 'nav-reports', 'nav-sessions', 'nav-settings']);
+      expect(await navAreas(staff)).toEqual(['nav-calendar', 'nav-reports', 'nav-sessions', 'nav-settings', 'nav-sources']);
       expect(await staff.getByTestId('laser-caution').first().isVisible()).toBe(true);
       await screenshot(staff, '03-staff-calendar');
 
