@@ -21,7 +21,7 @@ function AffectedList({ affected, timeZone }: { affected: AffectedBookingDto[]; 
         {affected.map((a) => (
           <li key={a.bookingId} className="space-y-0.5 px-3 py-2" data-testid="affected-booking" data-booking-id={a.bookingId} data-new={a.newlyAffected}>
             <p className="font-semibold">
-              {formatInstant(a.startsAt, timeZone)} · {a.configurationName} at{' '}
+              {formatInstant(a.startsAt, timeZone, true)} · {a.configurationName} at{' '}
               {a.targetMinNm === a.targetMaxNm ? `${nm.format(a.targetMinNm)} nm` : `${nm.format(a.targetMinNm)}–${nm.format(a.targetMaxNm)} nm`}
               <span className="ml-2 text-xs font-normal text-ink-muted">{a.newlyAffected ? 'new' : 'already affected before'}</span>
             </p>
