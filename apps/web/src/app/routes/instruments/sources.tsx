@@ -6,7 +6,7 @@ import { LaserCaution } from '../../../components/ui/laser-caution';
 import { PageHeader } from '../../../components/ui/page-header';
 import { PageLoading } from '../../../components/ui/spinner';
 import { StatusPill } from '../../../components/ui/status-pill';
-import { odBandsText } from '../../../features/configurations/components/od-bands-field';
+import { odBandsText } from '../../../features/instruments/components/od-bands-field';
 import { useFacility } from '../../../features/facility/api/get-facility';
 import { useManagedInstruments } from '../../../features/instruments/api/get-managed-instruments';
 import { ChangeoverMatrix } from '../../../features/instruments/components/changeover-matrix';

@@ -1,7 +1,7 @@
 import { configurationValuesSchema, outputKindLabels, outputKinds, type InstrumentAdminDto, type RequiredOdBand } from '@femtoslot/shared';
 import { useState } from 'react';
 import { SelectField, TextField } from '../../../components/ui/field';
-import { OdBandsField } from '../../configurations/components/od-bands-field';
+import { OdBandsField } from './od-bands-field';
 import type { InstrumentChange } from '../api/save-instrument-change';
 import { asText, fieldErrors, numberOrNull } from './form-bits';
 import { ReviewAndSave } from './review-and-save';
