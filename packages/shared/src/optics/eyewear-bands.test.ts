@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { eyewearCoverage, eyewearCovering, requiredOdProfile } from './eyewear';
+import { eyewearCoverage, eyewearCovering, requiredOdGaps, requiredOdProfile } from './eyewear';
 import { tableBands } from './table-wavelengths';
 
 // Required ODs and eyewear ratings here are invented test values; real ones come from the laser-safety officer.
@@ -39,6 +39,13 @@ describe('required OD per wavelength band', () => {
     expect(result.wavelengths[0]!.unsetNm).toEqual([{ minNm: 11000, maxNm: 12000 }]);
     expect(result.covering).toEqual([]);
     expect(eyewearCovering([11500], [od5Broad], dfgRequirement)).toEqual([]);
+  });
+
+  it('when OD bands leave the SHG residual fundamental uncovered, then the gap is named', () => {
+    // SHG 390–410 nm passes the 780–820 nm fundamental (SHG halves the wavelength; Boyd, Nonlinear Optics).
+    const shg = { outputKind: 'shg' as const, minNm: 390, maxNm: 410, pumpNm: 800 };
+    expect(requiredOdGaps(shg, [{ minNm: 380, maxNm: 420, od: 6 }])).toEqual([{ minNm: 780, maxNm: 820 }]);
+    expect(requiredOdGaps(shg, [{ minNm: 380, maxNm: 420, od: 6 }, { minNm: 700, maxNm: 900, od: 7 }])).toEqual([]);
   });
 
   it('for any bands, the coverage equals the pointwise rule: rated OD ≥ required OD at every wavelength on the table', () => {
