@@ -1,5 +1,5 @@
 import {
-  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, eyewearCoverage, formatNm, localDate, opaRangesOf,
+  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, formatNm, localDate, type WavelengthCoverage,
   type BookingCheckDto, type BookingTarget, type TimelineCheck,
 } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
@@ -10,6 +10,7 @@ import type { Configuration } from '../instruments/configuration.entity';
 import type { Organisation } from '../organisations/organisation.entity';
 import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
+import { checkOptics } from './optics-check';
 import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
@@ -102,13 +103,11 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   }
 
   let feasibility: ReturnType<typeof checkTargetFeasibility> | null = null;
+  let coverage: ReturnType<typeof checkOptics>['coverage'] = null;
   if (!configuration || !configuration.active) {
     problems.push({ code: 'out_of_range', message: 'That configuration does not belong to this instrument', status: 422 });
   } else {
-    feasibility = checkTargetFeasibility(req.target, {
-      outputKind: configuration.outputKind, minNm: configuration.minNm, maxNm: configuration.maxNm, pumpNm: timeline.instrument.pumpNm ?? undefined,
-      name: configuration.name, opa: opaRangesOf(timeline.configurations.values()),
-    });
+    ({ feasibility, coverage } = checkOptics(configuration, timeline.instrument, timeline.configurations.values(), req.target, reference.activeEyewear));
     for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm, ...r.details } });
   }
 
@@ -117,8 +116,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   let eyewear: EyewearItem[] = [];
   let odByWavelength: BookingCheckDto['odByWavelength'] = [];
   const onTable = feasibility?.feasible ? feasibility.onTable : [];
-  if (configuration && feasibility?.feasible) {
-    const coverage = eyewearCoverage(onTable, configuration.requiredOdBands, reference.activeEyewear);
+  if (coverage) {
     eyewear = coverage.covering;
     odByWavelength = coverage.wavelengths.map((w) => ({ role: w.role ?? '', minNm: w.minNm, maxNm: w.maxNm, requiredOd: w.requiredOd, eyewear: w.covering.map((e) => ({ id: e.id, label: e.label })) }));
     if (eyewear.length === 0) problems.push(noEyewearProblem(coverage.wavelengths));
@@ -174,7 +172,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
 const span = (w: { minNm: number; maxNm: number }) => (w.minNm === w.maxNm ? `${formatNm(w.minNm)} nm` : `${formatNm(w.minNm)}–${formatNm(w.maxNm)} nm`);
 
 /** Names each wavelength no listed eyewear is rated for, with the OD the laser-safety officer set there. */
-function noEyewearProblem(wavelengths: ReturnType<typeof eyewearCoverage>['wavelengths']): Problem {
+function noEyewearProblem(wavelengths: WavelengthCoverage<EyewearItem>[]): Problem {
   const uncovered = wavelengths.filter((w) => w.covering.length === 0);
   const parts = (uncovered.length ? uncovered : wavelengths).map((w) =>
     w.requiredOd === null ? `no required OD is set at ${w.unsetNm.map(span).join(', ')}` : `${span(w)} needs OD ≥ ${w.requiredOd}`);

@@ -1,7 +1,6 @@
-import {
-  checkTargetFeasibility, checkTimeline, eyewearCoverage, opaRangesOf, parseChangeoverModel, type AffectedBookingDto,
-} from '@femtoslot/shared';
+import { checkTimeline, parseChangeoverModel, type AffectedBookingDto } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
+import { checkOptics } from '../bookings/optics-check';
 import type { TimelineBlock } from '../bookings/timeline-block.entity';
 import { occupyingBlocks, stateOf, toEngineBlocks } from '../bookings/timeline.repository';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
@@ -32,12 +31,9 @@ function problemsUnder(state: InstrumentState, blocks: TimelineBlock[], booking:
   if (!c || booking.targetMinNm === null || booking.targetMaxNm === null) return problems;
   if (!c.active) problems.push({ code: 'configuration_inactive', message: `${c.name} would be inactive` });
   const target = booking.targetMinNm === booking.targetMaxNm ? { targetNm: booking.targetMinNm } : { minNm: booking.targetMinNm, maxNm: booking.targetMaxNm };
-  const feasibility = checkTargetFeasibility(target, {
-    outputKind: c.outputKind, minNm: c.minNm, maxNm: c.maxNm, pumpNm: state.instrument.pumpNm ?? undefined, name: c.name,
-    opa: opaRangesOf(state.configurations),
-  });
+  const { feasibility, coverage } = checkOptics(c, state.instrument, state.configurations, target, eyewear);
   for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message });
-  if (feasibility.feasible && eyewearCoverage(feasibility.onTable, c.requiredOdBands, eyewear).covering.length === 0) {
+  if (coverage && coverage.covering.length === 0) {
     problems.push({ code: 'no_eyewear', message: 'No eyewear on the list would be rated at the required OD for every wavelength on the table' });
   }
   const model = parseChangeoverModel(modelOf(state.instrument, state.configurations, state.pairs));
