@@ -1,4 +1,4 @@
-import { changeoverFor, localDate, wallTimeAt, zonedToUtc, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
+import { changeoverFor, localDate, wallTimeAt, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
 import { cancellationFeeLine, displacementLine, usageLines, type LineContext } from '@femtoslot/shared/billing/pricing';
 import { In, type EntityManager } from 'typeorm';
 import { Account } from '../accounts/account.entity';
@@ -10,13 +10,6 @@ import { Organisation } from '../organisations/organisation.entity';
 import { rateCardsBetween } from '../rate-cards/rate-card-lookup';
 import type { RateCard } from '../rate-cards/rate-card.entity';
 import { UsageLog } from '../usage/usage-log.entity';
-
-/** The facility-local calendar month as a half-open UTC interval. */
-export function monthBounds(month: string, timeZone: string): { startsAt: Date; endsAt: Date } {
-  const [year, mon] = month.split('-').map(Number) as [number, number];
-  const next = mon === 12 ? { year: year + 1, month: 1 } : { year, month: mon + 1 };
-  return { startsAt: zonedToUtc({ year, month: mon, day: 1, hour: 0, minute: 0 }, timeZone), endsAt: zonedToUtc({ ...next, day: 1, hour: 0, minute: 0 }, timeZone) };
-}
 
 const pad = (n: number) => String(n).padStart(2, '0');
 

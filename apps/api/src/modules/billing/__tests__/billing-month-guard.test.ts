@@ -17,8 +17,8 @@ describe('billing months and what a close leaves out', () => {
     const { finance } = await financeAgent(t);
     const { instrument, configs } = await makeInstrument(t);
     const who = await makeBooker(t, { kind: 'external_academic' });
-    // The facility's first booking: February 2026, so 2026-01 is the earliest month a period may cover.
-    await pastSession(t, { instrumentId: instrument.id, configuration: configs.fundamental, accountId: who.account.id, userId: who.user.id, organisationId: who.org.id, startsAt: new Date('2026-02-10T14:00:00Z'), hours: 2, nm: 800 });
+    // The facility's first booking: January 2026, so 2026-01 is the earliest month a period may cover.
+    await pastSession(t, { instrumentId: instrument.id, configuration: configs.fundamental, accountId: who.account.id, userId: who.user.id, organisationId: who.org.id, startsAt: new Date('2026-01-20T14:00:00Z'), hours: 2, nm: 800 });
     const current = localDate(new Date(), NY).slice(0, 7);
 
     for (const month of ['0000-01', '2031-06', '2025-12']) {
