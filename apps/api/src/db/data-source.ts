@@ -53,3 +53,7 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Invoices keep the PO number they were issued against.
+import { InvoicePoNumber1765500000000 } from './migrations/1765500000000-invoice-po-number';
+(migrations as unknown as (new () => object)[]).push(InvoicePoNumber1765500000000);
