@@ -99,3 +99,8 @@ export const rateCardKeys = {
   all: ['rate-cards'] as const,
   list: () => [...rateCardKeys.all, 'list'] as const,
 };
+
+export const estimateKeys = {
+  all: ['estimates'] as const,
+  forRequest: (body: unknown) => [...estimateKeys.all, 'request', body] as const,
+};

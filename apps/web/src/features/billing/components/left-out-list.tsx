@@ -19,8 +19,8 @@ export function LeftOutList({ leftOut, timeZone }: { leftOut: LeftOutSession[]; 
           Left out of this statement: {leftOut.length} booking{leftOut.length === 1 ? '' : 's'}
         </h4>
         <p className="text-xs text-ink-muted">
-          These bookings start in the month but will not be billed by this close. A log confirmed later is billed with the month it started in only if
-          that period is still open, so confirm logs first where you can.
+          These bookings start in the month but this close will not bill them, and a later period will not pick them up either (it bills
+          the sessions that start in its own month). Ask staff to confirm pending logs before closing where you can.
         </p>
       </header>
       <div className="overflow-x-auto">
