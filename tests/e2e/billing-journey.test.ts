@@ -11,6 +11,7 @@ import { TimelineBlock } from '@femtoslot/api/src/modules/bookings/timeline-bloc
 import { UsageLog } from '@femtoslot/api/src/modules/usage/usage-log.entity';
 import { User } from '@femtoslot/api/src/modules/users/user.entity';
 import { localDate } from '@femtoslot/shared';
+import { monthBounds, monthOf, previousMonthOf } from '@femtoslot/shared/billing/billing-month';
 import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
 
 const SECRET = 'whsec_e2e_billing_only';
@@ -41,7 +42,10 @@ afterAll(async () => {
   await scratch?.drop();
 });
 
-/** A confirmed two-hour DFG session of the external collaborator, in a free slot that ended at least an hour ago. */
+/**
+ * A confirmed two-hour DFG session of the external collaborator and an unlogged one, both in free slots of the month
+ * before last (facility zone): a month can be closed only once it has ended, and the demo seed has closed last month.
+ */
 async function confirmedCollaboratorSession() {
   const db = t.api.ctx.db;
   const user = await db.getRepository(User).findOneByOrFail({ email: 'collaborator@harrowpoint.test' });
@@ -49,7 +53,8 @@ async function confirmedCollaboratorSession() {
   const account = await db.getRepository(Account).findOneByOrFail({ organisationId: user.organisationId });
   const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
   const dfg = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'dfg' });
-  const start = await freePastSlot(db, aurora.id, 2, new Date(Date.now() - 3_600_000));
+  const monthBeforeLastEnd = monthBounds(previousMonthOf(monthOf(new Date(), 'America/New_York')), 'America/New_York').startsAt;
+  const start = await freePastSlot(db, aurora.id, 2, new Date(monthBeforeLastEnd.getTime() - 3_600_000));
   const booking = await pastSession(t, { instrumentId: aurora.id, configuration: dfg, accountId: account.id, userId: user.id, organisationId: user.organisationId, startsAt: start, hours: 2, nm: 4300 });
   await db.getRepository(TimelineBlock).update({ id: booking.id }, { status: 'completed' });
   const end = new Date(start.getTime() + 2 * 3_600_000);
@@ -57,6 +62,8 @@ async function confirmedCollaboratorSession() {
     bookingId: booking.id, status: 'confirmed', actualStartsAt: start, actualEndsAt: end, outsideGrace: false, notes: '', attachmentIds: [],
     submittedBy: user.id, submittedAt: end, confirmedBy: staff.id, confirmedAt: end, billedBy: null, billedAt: null,
   } as Omit<UsageLog, 'id'>);
+  const unloggedStart = await freePastSlot(db, aurora.id, 2, new Date(start.getTime() - 3_600_000));
+  await pastSession(t, { instrumentId: aurora.id, configuration: dfg, accountId: account.id, userId: user.id, organisationId: user.organisationId, startsAt: unloggedStart, hours: 2, nm: 4300 });
   return { month: localDate(start, 'America/New_York').slice(0, 7), account };
 }
 
@@ -71,7 +78,12 @@ describe('billing journey in Chromium', () => {
     await finance.getByTestId('open-period').click();
     await finance.getByTestId('period-preview').waitFor();
     await finance.getByTestId('preview-account').filter({ hasText: account.name }).first().waitFor();
+    await finance.getByTestId('left-out-row').first().waitFor();
+    expect(await finance.getByTestId('close-period').isDisabled()).toBe(true);
     await screenshot(finance, 'billing-01-finance-preview');
+    await finance.getByTestId('left-out').scrollIntoViewIfNeeded();
+    await screenshot(finance, 'billing-01b-left-out');
+    await finance.getByTestId('confirm-left-out').check();
     await finance.getByTestId('close-period').click();
     const progress = finance.getByTestId('close-progress');
     await progress.waitFor();

@@ -28,6 +28,7 @@ import { usageRoutes } from './modules/usage/usage.routes';
 import { billingRoutes } from './modules/billing/billing.routes';
 import { rateCardsRoutes } from './modules/rate-cards/rate-cards.routes';
 import { invoicesRoutes } from './modules/invoices/invoices.routes';
+import { estimatesRoutes } from './modules/estimates/estimates.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 import { instrumentAdminRoutes } from './modules/instruments/instrument-admin.routes';
 
@@ -53,6 +54,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...billingRoutes(ctx),
     ...invoicesRoutes(ctx),
     ...instrumentAdminRoutes(ctx),
+    ...estimatesRoutes(ctx),
   ];
 }
 

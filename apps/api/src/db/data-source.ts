@@ -57,3 +57,6 @@ import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-ep
 // Required OD per wavelength band, per configuration.
 import { RequiredOdBands1765700000000 } from './migrations/1765700000000-required-od-bands';
 (migrations as unknown as (new () => object)[]).push(RequiredOdBands1765700000000);
+// Invoices keep the PO number they were issued against.
+import { InvoicePoNumber1765500000000 } from './migrations/1765500000000-invoice-po-number';
+(migrations as unknown as (new () => object)[]).push(InvoicePoNumber1765500000000);

@@ -104,3 +104,8 @@ export const instrumentAdminKeys = {
   all: ['instrument-admin'] as const,
   list: () => [...instrumentAdminKeys.all, 'list'] as const,
 };
+
+export const estimateKeys = {
+  all: ['estimates'] as const,
+  forRequest: (body: unknown) => [...estimateKeys.all, 'request', body] as const,
+};

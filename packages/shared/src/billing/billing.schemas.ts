@@ -27,6 +27,12 @@ export const billingPeriodInputSchema = z.strictObject({
 });
 export type BillingPeriodInput = z.infer<typeof billingPeriodInputSchema>;
 
+/** Closing a period that leaves sessions out needs their count echoed back, so nobody closes past a list they have not seen. */
+export const billingCloseInputSchema = z.strictObject({
+  leftOutCount: z.number().int().min(0).max(100_000).optional(),
+});
+export type BillingCloseInput = z.infer<typeof billingCloseInputSchema>;
+
 /** Cost-centre codes: "CC-", four digits, "-", three digits (facility finance's format). */
 export const costCentreCodeSchema = z.string().trim().regex(/^CC-\d{4}-\d{3}$/, 'Use a cost centre code like CC-1234-567');
 

@@ -31,12 +31,14 @@ function targetOf(v: { targetNm?: number; minNm?: number; maxNm?: number }): Boo
 }
 
 /** `{instrumentId, configurationId, startsAt, endsAt, targetNm | {minNm, maxNm}, accountId, purpose}`. */
+function checkRequestShape(v: { targetNm?: number; minNm?: number; maxNm?: number; startsAt: string; endsAt: string }, ctx: z.RefinementCtx): void {
+  if (!targetOf(v)) ctx.addIssue({ code: 'custom', path: ['targetNm'], message: 'Give either a target wavelength or a range (minNm and maxNm)' });
+  if (v.minNm !== undefined && v.maxNm !== undefined && v.minNm > v.maxNm) ctx.addIssue({ code: 'custom', path: ['maxNm'], message: 'The range must run from short to long' });
+  if (Date.parse(v.endsAt) <= Date.parse(v.startsAt)) ctx.addIssue({ code: 'custom', path: ['endsAt'], message: 'The end must be after the start' });
+}
+
 export const createBookingInputSchema = bookingBase
-  .superRefine((v, ctx) => {
-    if (!targetOf(v)) ctx.addIssue({ code: 'custom', path: ['targetNm'], message: 'Give either a target wavelength or a range (minNm and maxNm)' });
-    if (v.minNm !== undefined && v.maxNm !== undefined && v.minNm > v.maxNm) ctx.addIssue({ code: 'custom', path: ['maxNm'], message: 'The range must run from short to long' });
-    if (Date.parse(v.endsAt) <= Date.parse(v.startsAt)) ctx.addIssue({ code: 'custom', path: ['endsAt'], message: 'The end must be after the start' });
-  })
+  .superRefine(checkRequestShape)
   .transform((v) => ({ ...v, target: targetOf(v)! }));
 export type CreateBookingInput = z.input<typeof createBookingInputSchema>;
 export type CreateBooking = z.output<typeof createBookingInputSchema>;
@@ -147,3 +149,11 @@ export interface BookingCheckDto {
   status: 'requested' | 'approved';
   cancellationPolicy: string;
 }
+
+/** A booking request priced before it is sent (POST /api/bookings/estimate): the same body, the purpose not needed yet. */
+export const bookingEstimateInputSchema = bookingBase
+  .extend({ purpose: z.string().trim().max(500).optional() })
+  .superRefine(checkRequestShape)
+  .transform((v) => ({ ...v, target: targetOf(v)! }));
+export type BookingEstimateInput = z.input<typeof bookingEstimateInputSchema>;
+export type BookingEstimateRequest = z.output<typeof bookingEstimateInputSchema>;

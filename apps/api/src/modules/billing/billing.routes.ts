@@ -1,4 +1,4 @@
-import { billingPeriodInputSchema } from '@femtoslot/shared';
+import { billingCloseInputSchema, billingPeriodInputSchema } from '@femtoslot/shared';
 import type { AppContext } from '../../lib/context';
 import { currentUser, param, type RouteDef } from '../../lib/auth/routes';
 import { billingService } from './billing.service';
@@ -15,7 +15,7 @@ export function billingRoutes(ctx: AppContext): RouteDef[] {
     {
       method: 'post', path: '/billing/periods/:id/close', access: ['finance'], scope: 'facility',
       handler: async (req, res) => {
-        const out = await s.requestClose(currentUser(req), param(req, 'id'), String(req.id));
+        const out = await s.requestClose(currentUser(req), param(req, 'id'), billingCloseInputSchema.parse(req.body ?? {}), String(req.id));
         res.status(out.started ? 202 : 200).json(out);
       },
     },

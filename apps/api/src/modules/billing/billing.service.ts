@@ -1,13 +1,16 @@
+import { localDate, type BillingCloseInput } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
 import { In } from 'typeorm';
+import { checkBillableMonth } from '@femtoslot/shared/billing/billing-month';
 import { formatMoney } from '@femtoslot/shared/billing/money';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
-import { notFound } from '../../lib/errors/app-error';
+import { AppError, notFound } from '../../lib/errors/app-error';
 import { recordAudit } from '../audit/audit.service';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { BillingJob, BillingPeriod, BillingPeriodAccount } from './billing.entities';
-import { computeStatement, monthBounds, type AccountStatement } from './statement';
+import { leftOutSessions, type LeftOutSession } from './left-out';
+import { computeStatement, type AccountStatement } from './statement';
 
 export const BILLING_CLOSE_QUEUE = 'billing-close';
 const FREEZE_CHUNK = 50;
@@ -32,8 +35,23 @@ function previewDto(accounts: AccountStatement[], currency: string) {
   };
 }
 
+const notEnded = (period: BillingPeriod) => new AppError('month_not_ended',
+  `${period.month} has not ended yet in ${period.timeZone}; a period can be closed once its last day is over`, 422,
+  { month: period.month, endsAt: period.endsAt.toISOString(), timeZone: period.timeZone });
+
 export function billingService(ctx: AppContext) {
   const db = ctx.db;
+
+  /** Year (facility zone) of the first booking ever made; null before the first one. */
+  async function firstBookingYear(timeZone: string): Promise<number | null> {
+    const [{ first }] = await db.query(`SELECT min(starts_at) AS first FROM timeline_blocks WHERE kind = 'booking'`);
+    return first ? Number(localDate(new Date(first), timeZone).slice(0, 4)) : null;
+  }
+
+  /** What the statement leaves out; only while the period is open (a closing or closed one is frozen). */
+  async function leftOutOf(m: EntityManager, period: BillingPeriod): Promise<LeftOutSession[] | null> {
+    return period.status === 'open' ? leftOutSessions(m, period) : null;
+  }
 
   /** The statement of a period: live while open, the frozen one once a close has started. */
   async function statementOf(m: EntityManager, period: BillingPeriod, facility: FacilitySettings): Promise<AccountStatement[]> {
@@ -50,18 +68,26 @@ export function billingService(ctx: AppContext) {
   /** Creates the month's period (or returns the one there is) with its preview. */
   async function openPeriod(user: SessionUser, month: string) {
     const facility = await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-    const bounds = monthBounds(month, facility.timeZone);
+    const verdict = checkBillableMonth({ month, timeZone: facility.timeZone, now: new Date(), firstBookingYear: await firstBookingYear(facility.timeZone) });
+    if (!verdict.ok) throw new AppError(verdict.code, verdict.message, 422, verdict.details);
+    const bounds = verdict;
     await db.query(`INSERT INTO billing_periods (month, starts_at, ends_at, time_zone, created_by) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (month) DO NOTHING`,
       [month, bounds.startsAt, bounds.endsAt, facility.timeZone, user.id]);
     const period = await db.getRepository(BillingPeriod).findOneByOrFail({ month });
-    return { period: toPeriodDto(period), preview: previewDto(await statementOf(db.manager, period, facility), facility.currency.trim()), job: await latestJob(period.id) };
+    return detailOf(period, facility);
   }
 
   async function getPeriod(id: string) {
     const period = await db.getRepository(BillingPeriod).findOneBy({ id });
     if (!period) throw notFound('Billing period');
-    const facility = await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-    return { period: toPeriodDto(period), preview: previewDto(await statementOf(db.manager, period, facility), facility.currency.trim()), job: await latestJob(period.id) };
+    return detailOf(period, await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 }));
+  }
+
+  async function detailOf(period: BillingPeriod, facility: FacilitySettings) {
+    return {
+      period: toPeriodDto(period), preview: previewDto(await statementOf(db.manager, period, facility), facility.currency.trim()),
+      leftOut: await leftOutOf(db.manager, period), job: await latestJob(period.id),
+    };
   }
 
   async function listPeriods() {
@@ -79,7 +105,7 @@ export function billingService(ctx: AppContext) {
    * close already queued or running is returned instead of a second one; a failed one is started again, and
    * skips every account it already finished.
    */
-  async function requestClose(user: SessionUser, periodId: string, requestId?: string) {
+  async function requestClose(user: SessionUser, periodId: string, input: BillingCloseInput, requestId?: string) {
     const out = await db.transaction(async (m) => {
       const period = await m.getRepository(BillingPeriod).findOne({ where: { id: periodId }, lock: { mode: 'pessimistic_write' } });
       if (!period) throw notFound('Billing period');
@@ -88,6 +114,13 @@ export function billingService(ctx: AppContext) {
       const active = await jobs.findOne({ where: { periodId, status: In(['queued', 'running']) } });
       if (active) return { period, job: active, started: false };
       if (period.status === 'open') {
+        if (period.endsAt.getTime() > Date.now()) throw notEnded(period);
+        const leftOut = (await leftOutOf(m, period))!;
+        if (leftOut.length > 0 && input.leftOutCount !== leftOut.length) {
+          throw new AppError('left_out_not_confirmed',
+            `${leftOut.length} booking${leftOut.length === 1 ? '' : 's'} in ${period.month} will not be billed (no log, an unconfirmed log, or never approved); confirm by sending leftOutCount: ${leftOut.length}`,
+            422, { leftOutCount: leftOut.length, confirmedCount: input.leftOutCount ?? null, leftOut });
+        }
         const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
         const statement = await computeStatement(m, facility, period);
         // In chunks: one statement per chunk keeps the round trips few and each query's text bounded.
@@ -98,7 +131,10 @@ export function billingService(ctx: AppContext) {
         period.status = 'closing';
         period.closeRequestedBy = user.id;
         await m.getRepository(BillingPeriod).save(period);
-        await recordAudit(m, { actorUserId: user.id, action: 'billing_period.close_requested', entityType: 'billing_period', entityId: period.id, requestId });
+        await recordAudit(m, {
+          actorUserId: user.id, action: 'billing_period.close_requested', entityType: 'billing_period', entityId: period.id, requestId,
+          after: { leftOutCount: leftOut.length, leftOutBookingIds: leftOut.map((l) => l.bookingId) },
+        });
       }
       const total = await m.getRepository(BillingPeriodAccount).countBy({ periodId });
       const done = await m.getRepository(BillingPeriodAccount).countBy({ periodId, status: 'done' });

@@ -41,7 +41,7 @@ async function recordDone(run: CloseRun, accountId: string, external: { status: 
       periodId: period.id, accountId, organisationId: account.organisationId, number: await nextNumber(m, period.month, internal ? 'JNL' : 'INV'),
       kind: internal ? 'internal' : 'external', status: internal ? 'journal' : external?.status ?? 'paid', currency: row.currency.trim(), totalMinor: row.totalMinor,
       amountPaidMinor: external?.amountPaid ?? 0, paidAt: external?.status === 'paid' ? new Date() : null, lines: row.lines,
-      stripeInvoiceId: external?.stripeInvoiceId ?? null, stripeInvoiceNumber: external?.number ?? null, hostedInvoiceUrl: external?.url ?? null, dueDate: external?.dueDate ?? null,
+      poNumber: internal ? null : account.poNumber, stripeInvoiceId: external?.stripeInvoiceId ?? null, stripeInvoiceNumber: external?.number ?? null, hostedInvoiceUrl: external?.url ?? null, dueDate: external?.dueDate ?? null,
     }));
     if (internal && row.lines.length) {
       await m.getRepository(JournalLine).insert(row.lines.map((line) => ({

@@ -1,4 +1,5 @@
 import { localDate } from '@femtoslot/shared';
+import { monthBounds } from '@femtoslot/shared/billing/billing-month';
 import { In, type EntityManager } from 'typeorm';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { Invoice } from '../invoices/invoice.entity';
@@ -6,7 +7,7 @@ import { RateCard } from '../rate-cards/rate-card.entity';
 import { UsageLog } from '../usage/usage-log.entity';
 import { User } from '../users/user.entity';
 import { BillingPeriod, BillingPeriodAccount, JournalLine } from './billing.entities';
-import { computeStatement, monthBounds } from './statement';
+import { computeStatement } from './statement';
 
 /**
  * Demo billing: the rate card from three months back, and last month closed for the internal groups by journal

@@ -1,4 +1,4 @@
-import { changeoverFor, localDate, wallTimeAt, zonedToUtc, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
+import { changeoverFor, localDate, wallTimeAt, type AccountStatement, type OrganisationKind, type PriceLine } from '@femtoslot/shared';
 import { cancellationFeeLine, displacementLine, usageLines, type LineContext } from '@femtoslot/shared/billing/pricing';
 import { In, type EntityManager } from 'typeorm';
 import { Account } from '../accounts/account.entity';
@@ -10,13 +10,6 @@ import { Organisation } from '../organisations/organisation.entity';
 import { rateCardsBetween } from '../rate-cards/rate-card-lookup';
 import type { RateCard } from '../rate-cards/rate-card.entity';
 import { UsageLog } from '../usage/usage-log.entity';
-
-/** The facility-local calendar month as a half-open UTC interval. */
-export function monthBounds(month: string, timeZone: string): { startsAt: Date; endsAt: Date } {
-  const [year, mon] = month.split('-').map(Number) as [number, number];
-  const next = mon === 12 ? { year: year + 1, month: 1 } : { year, month: mon + 1 };
-  return { startsAt: zonedToUtc({ year, month: mon, day: 1, hour: 0, minute: 0 }, timeZone), endsAt: zonedToUtc({ ...next, day: 1, hour: 0, minute: 0 }, timeZone) };
-}
 
 const pad = (n: number) => String(n).padStart(2, '0');
 
@@ -43,21 +36,25 @@ const found = <T>(map: Map<string, T>, id: string, what: string): T => {
   return v;
 };
 
+/** Stands in for a booking id when pricing one that does not exist yet (an estimate): matches no row. */
+export const UNSAVED_BOOKING_ID = '00000000-0000-0000-0000-000000000000';
+
 /**
  * Changeover minutes the source needed before each booking, from the booking before it on the same instrument: one
- * query for every predecessor, one timeline per instrument.
+ * query for every predecessor, one timeline per instrument. The bookings are passed as values, so an estimate for a
+ * booking not yet saved finds its predecessor the same way.
  */
 async function changeoverBeforeAll(m: EntityManager, bookings: TimelineBlock[]): Promise<Map<string, number>> {
   const out = new Map<string, number>();
   if (!bookings.length) return out;
   const previous: { booking_id: string; configuration_id: string | null; target_min_nm: string | null; target_max_nm: string | null }[] = await m.query(
     `SELECT b.id AS booking_id, p.configuration_id, p.target_min_nm, p.target_max_nm
-       FROM timeline_blocks b
+       FROM unnest($1::uuid[], $2::uuid[], $3::timestamptz[]) AS b(id, instrument_id, starts_at)
        JOIN LATERAL (SELECT q.configuration_id, q.target_min_nm, q.target_max_nm FROM timeline_blocks q
                       WHERE q.instrument_id = b.instrument_id AND q.kind = 'booking' AND q.status IN ('approved', 'completed')
                         AND q.ends_at <= b.starts_at AND q.id <> b.id
-                      ORDER BY q.ends_at DESC LIMIT 1) p ON true
-      WHERE b.id = ANY($1::uuid[])`, [bookings.map((b) => b.id)]);
+                      ORDER BY q.ends_at DESC LIMIT 1) p ON true`,
+    [bookings.map((b) => b.id), bookings.map((b) => b.instrumentId), bookings.map((b) => b.startsAt)]);
   const byId = new Map(bookings.map((b) => [b.id, b]));
   const timelines = new Map<string, InstrumentTimeline>();
   for (const p of previous) {

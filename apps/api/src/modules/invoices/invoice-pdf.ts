@@ -1,63 +1,51 @@
-import { existsSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import path from 'node:path';
+import { localDate } from '@femtoslot/shared';
 import { formatMoney } from '@femtoslot/shared/billing/money';
-import PDFDocument from 'pdfkit';
+import { newPdf } from '../../lib/pdf/document';
+import { writeText } from '../../lib/pdf/unicode-text';
 import type { toInvoiceDto } from './invoices.service';
 
 type InvoiceDto = ReturnType<typeof toInvoiceDto>;
 
-/** Manrope from @fontsource (WOFF, which pdfkit's fontkit reads); Helvetica if the package is missing. */
-function manropeFiles(): { regular: string; bold: string } | null {
-  try {
-    const dir = path.join(path.dirname(createRequire(import.meta.url).resolve('@fontsource/manrope/package.json')), 'files');
-    const regular = path.join(dir, 'manrope-latin-400-normal.woff');
-    const bold = path.join(dir, 'manrope-latin-700-normal.woff');
-    return existsSync(regular) && existsSync(bold) ? { regular, bold } : null;
-  } catch {
-    return null;
-  }
-}
-
-export function renderInvoicePdf(inv: InvoiceDto, facilityName: string): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'A4', margin: 50, info: { Title: `Invoice ${inv.number}`, Author: facilityName } });
-  const fonts = manropeFiles();
-  const regular = fonts ? 'Manrope' : 'Helvetica';
-  const bold = fonts ? 'Manrope-Bold' : 'Helvetica-Bold';
-  if (fonts) {
-    doc.registerFont('Manrope', fonts.regular);
-    doc.registerFont('Manrope-Bold', fonts.bold);
-  }
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+/**
+ * The invoice (or journal) as a PDF. Every name is written through the Unicode font chain, so "Łódź", "ΔΦ Labs",
+ * "Жуковский" or "東京" print as typed; amounts are formatted with the currency's ISO 4217 minor unit.
+ */
+export function renderInvoicePdf(inv: InvoiceDto, facility: { name: string; timeZone: string }): Promise<Buffer> {
+  const { doc, done } = newPdf({ Title: `Invoice ${inv.number}`, Author: facility.name });
   const money = (minor: number) => formatMoney(minor, inv.currency);
-  doc.font(bold).fontSize(16).text(facilityName);
-  doc.moveDown(0.3).font(regular).fontSize(10).fillColor('#555').text('Beam time statement — Femtoslot');
-  doc.moveDown().fillColor('#000').font(bold).fontSize(12).text(inv.kind === 'internal' ? `Journal ${inv.number}` : `Invoice ${inv.number}`);
-  doc.font(regular).fontSize(10);
-  doc.text(`Account: ${inv.accountName ?? inv.accountId}`);
-  doc.text(`Billing period: ${inv.month ?? ''}`);
-  if (inv.stripeInvoiceNumber) doc.text(`Stripe invoice: ${inv.stripeInvoiceNumber}`);
-  doc.text(`Status: ${inv.status}`);
-  if (inv.dueDate) doc.text(`Due date: ${inv.dueDate}`);
+  doc.fontSize(16);
+  writeText(doc, facility.name, 'bold');
+  doc.moveDown(0.3).fontSize(10).fillColor('#555');
+  writeText(doc, 'Beam time statement — Femtoslot', 'regular');
+  doc.moveDown().fillColor('#000').fontSize(12);
+  writeText(doc, inv.kind === 'internal' ? `Journal ${inv.number}` : `Invoice ${inv.number}`, 'bold');
+  doc.fontSize(10);
+  // The issue date is the facility's calendar date when the close wrote the invoice.
+  writeText(doc, `Issued ${localDate(new Date(inv.issuedAt), facility.timeZone)}`, 'regular');
+  writeText(doc, `Account: ${inv.accountName ?? inv.accountId}`, 'regular');
+  if (inv.poNumber) writeText(doc, `Purchase order: ${inv.poNumber}`, 'regular');
+  writeText(doc, `Billing period: ${inv.month ?? ''}`, 'regular');
+  if (inv.stripeInvoiceNumber) writeText(doc, `Stripe invoice: ${inv.stripeInvoiceNumber}`, 'regular');
+  writeText(doc, `Status: ${inv.status}`, 'regular');
+  if (inv.dueDate) writeText(doc, `Due date: ${inv.dueDate}`, 'regular');
   doc.moveDown();
   for (const line of inv.lines) {
     const y = doc.y;
-    doc.font(bold).text(line.label, 50, y, { width: 380 });
-    doc.font(regular).text(money(line.amountMinor), 440, y, { width: 105, align: 'right' });
-    doc.font(regular).fillColor('#444').text(line.explanation, 50, doc.y, { width: 380 });
+    writeText(doc, money(line.amountMinor), 'regular', { x: 440, y, width: 105, align: 'right' });
+    writeText(doc, line.label, 'bold', { x: 50, y, width: 380 });
+    doc.fillColor('#444');
+    writeText(doc, line.explanation, 'regular', { x: 50, y: doc.y, width: 380 });
     doc.fillColor('#000').moveDown(0.6);
   }
   doc.moveTo(50, doc.y).lineTo(545, doc.y).stroke();
   doc.moveDown(0.5);
   const y = doc.y;
-  doc.font(bold).text('Total', 50, y, { width: 380 });
-  doc.text(money(inv.totalMinor), 440, y, { width: 105, align: 'right' });
-  if (inv.hostedInvoiceUrl) doc.moveDown().font(regular).text(`Pay online: ${inv.hostedInvoiceUrl}`, 50);
+  writeText(doc, 'Total', 'bold', { x: 50, y, width: 380 });
+  writeText(doc, money(inv.totalMinor), 'bold', { x: 440, y, width: 105, align: 'right' });
+  if (inv.hostedInvoiceUrl) {
+    doc.moveDown();
+    writeText(doc, `Pay online: ${inv.hostedInvoiceUrl}`, 'regular', { x: 50 });
+  }
   doc.end();
   return done;
 }

@@ -22,6 +22,7 @@ export class Invoice {
   @Column({ name: 'stripe_invoice_number', type: 'text', nullable: true }) stripeInvoiceNumber: string | null;
   @Column({ name: 'hosted_invoice_url', type: 'text', nullable: true }) hostedInvoiceUrl: string | null;
   @Column({ name: 'due_date', type: 'date', nullable: true }) dueDate: string | null;
+  @Column({ name: 'po_number', type: 'text', nullable: true }) poNumber: string | null;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
   @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' }) updatedAt: Date;
 }

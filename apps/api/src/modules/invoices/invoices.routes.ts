@@ -25,7 +25,7 @@ export function invoicesRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const inv = await s.one(currentUser(req), param(req, 'id'));
         const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-        res.type('application/pdf').attachment(`${inv.number}.pdf`).send(await renderInvoicePdf(inv, facility.name));
+        res.type('application/pdf').attachment(`${inv.number}.pdf`).send(await renderInvoicePdf(inv, { name: facility.name, timeZone: facility.timeZone }));
       },
     },
     { method: 'get', path: '/invoices/:id', access: viewers, scope: 'organisation', owner: 'invoice', handler: async (req, res) => { res.json({ invoice: await s.one(currentUser(req), param(req, 'id')) }); } },

@@ -15,7 +15,7 @@ export function toInvoiceDto(i: Invoice, account: Account | undefined, month: st
     id: i.id, number: i.number, periodId: i.periodId, month: month ?? null, accountId: i.accountId, accountName: account?.name ?? null, organisationId: i.organisationId,
     kind: i.kind, status: i.status, currency: i.currency.trim(), totalMinor: i.totalMinor, totalFormatted: formatMoney(i.totalMinor, i.currency.trim()),
     amountPaidMinor: i.amountPaidMinor, paidAt: i.paidAt?.toISOString() ?? null, dueDate: i.dueDate, stripeInvoiceNumber: i.stripeInvoiceNumber,
-    hostedInvoiceUrl: i.hostedInvoiceUrl, lines: i.lines, pdfUrl: `/api/invoices/${i.id}.pdf`,
+    hostedInvoiceUrl: i.hostedInvoiceUrl, lines: i.lines, pdfUrl: `/api/invoices/${i.id}.pdf`, poNumber: i.poNumber, issuedAt: i.createdAt.toISOString(),
   };
 }
 

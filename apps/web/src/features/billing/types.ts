@@ -35,9 +35,29 @@ export interface PeriodPreview {
   totalMinor: number;
 }
 
+/** A booking of the month the statement does not bill (apps/api/src/modules/billing/left-out.ts). */
+export interface LeftOutSession {
+  bookingId: string;
+  reason: 'unlogged' | 'log_not_confirmed' | 'not_approved';
+  bookingStatus: string;
+  usageLogId: string | null;
+  startsAt: string;
+  endsAt: string;
+  instrumentName: string;
+  configurationName: string | null;
+  userId: string | null;
+  userName: string | null;
+  userEmail: string | null;
+  accountId: string | null;
+  accountName: string | null;
+  organisationName: string | null;
+}
+
 export interface PeriodDetail {
   period: BillingPeriod;
   preview: PeriodPreview;
+  /** only while the period is open; null once its statement is frozen */
+  leftOut?: LeftOutSession[] | null;
   job: BillingJob | null;
 }
 

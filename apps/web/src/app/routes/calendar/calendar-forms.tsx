@@ -5,6 +5,7 @@ import { PartLoadBoundary, lazyPart } from '../../../components/ui/lazy-part';
 import { Notice } from '../../../components/ui/notice';
 import { Spinner } from '../../../components/ui/spinner';
 import type { RequestFormProps } from '../../../features/bookings/components/request-form';
+import { BookingEstimate } from '../../../features/estimates/components/booking-estimate';
 import type { MaintenanceFormProps } from '../../../features/maintenance/components/maintenance-form';
 
 // The forms bring react-hook-form, zod and the shared schemas: about a fifth of the page's script, needed only
@@ -77,7 +78,7 @@ function LazyForm(props: ShellProps & { children: ReactNode }) {
 export function RequestFormDialog(props: RequestFormProps) {
   return (
     <LazyForm title="Request beam time" size="lg" onClose={props.onClose}>
-      <LazyRequestForm {...props} />
+      <LazyRequestForm {...props} estimate={props.estimate ?? ((body) => <BookingEstimate body={body} timeZone={props.timeZone} />)} />
     </LazyForm>
   );
 }

@@ -10,8 +10,14 @@ export interface CloseAnswer {
   started: boolean;
 }
 
-export const closePeriod = (periodId: string) =>
-  apiClient.post<CloseAnswer>(`/api/billing/periods/${encodeURIComponent(periodId)}/close`);
+export interface CloseRequest {
+  periodId: string;
+  /** the number of left-out bookings the user has read and accepts; needed when there are any */
+  leftOutCount?: number;
+}
+
+export const closePeriod = ({ periodId, leftOutCount }: CloseRequest) =>
+  apiClient.post<CloseAnswer>(`/api/billing/periods/${encodeURIComponent(periodId)}/close`, leftOutCount === undefined ? {} : { leftOutCount });
 
 export function useClosePeriod() {
   const queryClient = useQueryClient();

@@ -4,6 +4,7 @@ import { toast } from 'sonner';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { isApiError } from '../../../lib/api-client';
 import { cx } from '../../../lib/cx';
 import { usePeriods } from '../api/get-periods';
 import { useOpenPeriod } from '../api/open-period';
@@ -35,7 +36,8 @@ export function BillingPeriodsPanel({ timeZone, canClose, closedInvoices }: Bill
     setMonthError(null);
     open.mutate(parsed.data, {
       onSuccess: (detail) => setSelected(detail.period.id),
-      onError: (error) => toast.error(error.message),
+      // A month that cannot be billed (not ended, out of range) is the field's fault: say so beside it.
+      onError: (error) => (isApiError(error) && error.status === 422 ? setMonthError(error.message) : toast.error(error.message)),
     });
   };
 

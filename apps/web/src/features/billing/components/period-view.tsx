@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { PageLoading } from '../../../components/ui/spinner';
 import { StatusPill } from '../../../components/ui/status-pill';
+import { isApiError } from '../../../lib/api-client';
 import { billingKeys, invoiceKeys } from '../../../lib/query-keys';
 import { formatInstant } from '../../../lib/wall-time';
 import { useClosePeriod } from '../api/close-period';
@@ -13,6 +14,7 @@ import { usePeriod } from '../api/get-period';
 import { monthLabel } from '../../../lib/months';
 import { type PeriodStatus, isJobActive } from '../types';
 import { CloseProgress } from './close-progress';
+import { LeftOutList } from './left-out-list';
 import { PeriodPreview } from './period-preview';
 
 export const periodStatusPill: Record<PeriodStatus, ReactNode> = {
@@ -34,6 +36,7 @@ export function PeriodView({ periodId, canClose, timeZone, closedInvoices }: Per
   const detail = usePeriod(periodId);
   const close = useClosePeriod();
   const [closeJobId, setCloseJobId] = useState<string | null>(null);
+  const [acceptedLeftOut, setAcceptedLeftOut] = useState(false);
   const jobId = closeJobId ?? detail.data?.job?.id ?? null;
   const job = useBillingJob(jobId);
   const lastStatus = useRef<string | undefined>(undefined);
@@ -61,14 +64,23 @@ export function PeriodView({ periodId, canClose, timeZone, closedInvoices }: Per
   const running = isJobActive(current);
   const resumable = period.status === 'closing' && current?.status === 'failed';
   const names = new Map(preview.accounts.map((a) => [a.accountId, a.accountName]));
+  const leftOut = period.status === 'open' ? (detail.data.leftOut ?? []) : [];
+  const mustConfirm = leftOut.length > 0 && !resumable;
 
   const onClose = () =>
-    close.mutate(period.id, {
+    close.mutate({ periodId: period.id, leftOutCount: mustConfirm ? leftOut.length : undefined }, {
       onSuccess: (answer) => {
         if (answer.job) setCloseJobId(answer.job.id);
         if (!answer.started) toast.info(answer.period.status === 'closed' ? 'This period is already closed' : 'A close is already running');
       },
-      onError: (error) => toast.error(error.message),
+      onError: (error) => {
+        toast.error(error.message);
+        // The list changed since it was read (a log confirmed, a booking added): read it again and ask again.
+        if (isApiError(error) && error.code === 'left_out_not_confirmed') {
+          setAcceptedLeftOut(false);
+          void queryClient.invalidateQueries({ queryKey: billingKeys.period(periodId) });
+        }
+      },
     });
 
   return (
@@ -85,13 +97,30 @@ export function PeriodView({ periodId, canClose, timeZone, closedInvoices }: Per
         <p className="text-sm text-ink-muted">The statement below was frozen when the close started.</p>
       )}
       <PeriodPreview preview={preview} />
+      {leftOut.length > 0 && <LeftOutList leftOut={leftOut} timeZone={timeZone} />}
       {canClose && (period.status === 'open' || resumable) && !running && (
         <div className="flex flex-wrap items-center justify-between gap-3 rounded-xl border border-line bg-sunk/60 px-4 py-3">
-          <p className="max-w-prose text-sm text-ink-muted">
-            Closing freezes this statement, marks its session logs billed, sends each external invoice to Stripe and e-mails the billing contact, and
-            writes a journal for each cost centre. It cannot be undone.
-          </p>
-          <Button data-testid="close-period" busy={close.isPending} onClick={onClose}>
+          <div className="max-w-prose space-y-2 text-sm">
+            <p className="text-ink-muted">
+              Closing freezes this statement, marks its session logs billed, sends each external invoice to Stripe and e-mails the billing contact, and
+              writes a journal for each cost centre. It cannot be undone.
+            </p>
+            {mustConfirm && (
+              <label className="flex items-start gap-2 font-semibold">
+                <input
+                  type="checkbox"
+                  data-testid="confirm-left-out"
+                  className="mt-1"
+                  checked={acceptedLeftOut}
+                  onChange={(event) => setAcceptedLeftOut(event.target.checked)}
+                />
+                <span>
+                  Close without the {leftOut.length} booking{leftOut.length === 1 ? '' : 's'} listed above; they will not be billed in this period.
+                </span>
+              </label>
+            )}
+          </div>
+          <Button data-testid="close-period" busy={close.isPending} disabled={mustConfirm && !acceptedLeftOut} onClick={onClose}>
             {resumable ? 'Resume closing' : 'Close period'}
           </Button>
         </div>

@@ -1,6 +1,6 @@
 import type { BookingCheckDto, CreateBookingInput } from '@femtoslot/shared';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useMemo, useState } from 'react';
+import { type ReactNode, useEffect, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { toast } from 'sonner';
 import { Button } from '../../../components/ui/button';
@@ -29,6 +29,8 @@ export interface RequestFormProps {
   /** shown until the live check brings the facility's own wording */
   policyText: string;
   limits?: { minBookingHours: number; maxBookingHours: number };
+  /** the live price of the request, composed by the page (features/estimates) */
+  estimate?: (body: CreateBookingInput | null) => ReactNode;
 }
 
 export function RequestForm(props: RequestFormProps) {
@@ -240,6 +242,7 @@ function RequestFormBody(props: RequestFormProps) {
             {status === 'approved' ? 'This will be approved at once.' : 'This will be a request for staff approval.'}
           </p>
         )}
+        {props.estimate?.(checkBody)}
         <p data-testid="cancellation-policy" className="text-ink-muted">
           {checkData?.cancellationPolicy || props.policyText}
         </p>
