@@ -22,7 +22,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     handler: tooMany('Too many sign-in attempts. Wait a few minutes and try again.'),
   });
   const mailLimiter = rateLimit({
-    windowMs: 15 * 60_000, limit: 20, standardHeaders: 'draft-8', legacyHeaders: false,
+    windowMs: 15 * 60_000, limit: ctx.env.MAIL_RATE_LIMIT, standardHeaders: 'draft-8', legacyHeaders: false,
     handler: tooMany('Too many requests for e-mail links. Wait a few minutes and try again.'),
   });
 
