@@ -53,3 +53,9 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Signing out ends that session: its token id is refused until the token expires.
+import { RevokedSessions1765300000000 } from './migrations/1765300000000-revoked-sessions';
+import { RevokedSession } from '../modules/auth/revoked-session.entity';
+(entities as unknown as (new () => object)[]).push(RevokedSession);
+(migrations as unknown as (new () => object)[]).push(RevokedSessions1765300000000);
