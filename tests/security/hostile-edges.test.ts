@@ -104,16 +104,21 @@ describe('hostile edges over the router table', () => {
     expect(failuresOf('NUL / lone surrogate in JSON text')).toEqual([]);
   }, 300_000);
 
-  it('when a query parameter holds NUL, then 400 invalid_text on every GET route', async () => {
+  it('when a query or path parameter holds NUL, then 400 invalid_text on every GET route', async () => {
     for (const r of table().filter((x) => x.method === 'get')) {
       const sample = querySamples[key(r)] ?? {};
       const variants = [{ ...sample, probe: 'a\u0000b' }, ...Object.keys(sample).map((k) => ({ ...sample, [k]: `${sample[k]}\u0000` }))];
       for (const q of variants) {
         const res = await send(r, `${concretePath(r.path)}?${new URLSearchParams(q)}`);
-        check('NUL in query text', `${key(r)} ?${new URLSearchParams(q)}`, res, answer(400, 'invalid_text'));
+        check('NUL in query or path text', `${key(r)} ?${new URLSearchParams(q)}`, res, answer(400, 'invalid_text'));
       }
     }
-    expect(failuresOf('NUL in query text')).toEqual([]);
+    // Path parameters that are not ids (an invitation token, a calendar feed's file name) are text too.
+    for (const r of table().filter((x) => /:(token|file)\b/.test(x.path))) {
+      const url = concretePath(r.path.replace(/:(token|file)\b/, `${'x'.repeat(24)}%00${'x'.repeat(8)}`));
+      check('NUL in query or path text', `${key(r)} ${url}`, await send(r, url), answer(400, 'invalid_text'));
+    }
+    expect(failuresOf('NUL in query or path text')).toEqual([]);
   }, 300_000);
 
   it('when a date or instant is impossible (year 0000, offset beyond ±14:00, 30 February), then 400 validation_failed', async () => {

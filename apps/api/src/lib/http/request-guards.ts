@@ -43,11 +43,11 @@ function firstUnstorable(value: unknown): Path | null {
 }
 
 /**
- * One check for every text that arrives (JSON or form body, query string), before any route sees it: NUL and lone
+ * One check for every text that arrives (JSON or form body, query string, path parameters), before any route sees it: NUL and lone
  * surrogates are refused with 400 invalid_text, naming where, instead of failing deep inside (a 500 from PostgreSQL).
  */
 export const refuseUnstorableText: RequestHandler = (req, _res, next) => {
-  for (const [location, value] of [['body', req.body], ['query', req.query]] as const) {
+  for (const [location, value] of [['body', req.body], ['query', req.query], ['path', req.params]] as const) {
     const path = firstUnstorable(value);
     if (path) {
       return next(new AppError('invalid_text', 'Text may not contain NUL characters (U+0000) or unpaired UTF-16 surrogates', 400, [{ location, path }]));
