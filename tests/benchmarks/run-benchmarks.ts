@@ -17,6 +17,7 @@ import { printTable, repoRoot, signIn, startApiChild, verdict, type ApiChild, ty
 import { benchWebBundle, buildWebWithManifest } from './web-bundle.bench';
 import { benchWeekQuery } from './week-query.bench';
 import { benchWeekRender } from './week-render.bench';
+import { benchForgotPassword } from './forgot-password.bench';
 
 export interface BenchInputs {
   databaseUrl: string;
@@ -57,7 +58,7 @@ async function setBenchSourcesActive(databaseUrl: string, active: boolean): Prom
   try { await c.query(`UPDATE instruments SET active = $1 WHERE name LIKE 'Bench source %'`, [active]); } finally { await c.end(); }
 }
 
-/** `BENCH_ONLY=1,3` runs only those sections (1 creation, 2 week query, 3 close, 4 planner, 5 bundle, 6 render). */
+/** `BENCH_ONLY=1,3` runs only those sections (1 creation, 2 week query, 3 close, 4 planner, 5 bundle, 6 render, 7 forgot-password). */
 const only = (process.env.BENCH_ONLY ?? '').split(',').map((s) => s.trim()).filter(Boolean);
 const wanted = (section: string) => only.length === 0 || only.includes(section);
 
@@ -77,7 +78,7 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
   const fakeServer = await fake.listen(o.stripePort, '127.0.0.1');
   const apiEnv = {
     NODE_ENV: 'production', DATABASE_URL: o.databaseUrl, DATA_DIR: o.dataDir, JWT_SECRET: randomBytes(48).toString('base64url'),
-    APP_URL: `http://127.0.0.1:${o.apiPort}`, SMTP_HOST: '127.0.0.1', SMTP_PORT: String(o.smtpPort), LOG_LEVEL: 'info', LOGIN_RATE_LIMIT: '1000',
+    APP_URL: `http://127.0.0.1:${o.apiPort}`, SMTP_HOST: '127.0.0.1', SMTP_PORT: String(o.smtpPort), LOG_LEVEL: 'info', LOGIN_RATE_LIMIT: '1000', MAIL_RATE_LIMIT: '100000',
     WEB_DIST: webDir, STRIPE_HOST: '127.0.0.1', STRIPE_PORT: String(fakeServer.port), STRIPE_PROTOCOL: 'http', STRIPE_WEBHOOK_SECRET: webhookSecret,
   };
   let api: ApiChild | null = null;
@@ -87,6 +88,7 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
     const cookie = await signIn(api.url, world.booker.email, BENCH_PASSWORD);
     if (wanted('1')) add(await timed('1 booking creation (API vs raw SQL)', () => benchBookingCreation({ apiUrl, apiPid: api!.pid, pgDataDir: o.pgDataDir, cookie, databaseUrl: o.databaseUrl, world })));
     if (wanted('2')) add(await timed('2 week query (API vs raw SQL)', () => benchWeekQuery({ apiUrl, apiPid: api!.pid, pgDataDir: o.pgDataDir, cookie, databaseUrl: o.databaseUrl, world })));
+    if (wanted('7')) add(await timed('7 forgot-password: existing vs unknown e-mail', () => benchForgotPassword({ apiUrl, world })));
     // A fresh API process for the close, so that its peak memory is the close's and not the load runs' heap.
     await api.stop();
     const fresh = api = await timed('fresh API child process for the close', () => startApiChild(apiEnv, o.apiPort));
@@ -101,7 +103,7 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
   }
   if (wanted('4')) add(await timed('4 planner', () => benchPlanner()));
 
-  const order = ['1', '2', '3', '4', '5', '6'];
+  const order = ['1', '2', '3', '4', '5', '6', '7'];
   figures.sort((a, b) => order.indexOf(a.section) - order.indexOf(b.section));
   const after = await machine(o.databaseUrl);
   const table = printTable(figures);

@@ -12,6 +12,7 @@ import { createApp } from './server';
 import { startBookingJobs } from './modules/bookings/bookings.service';
 import { startUsageJobs } from './modules/usage/usage.service';
 import { startBillingJobs } from './modules/billing/close-job';
+import { startAuthJobs } from './modules/auth/auth.service';
 import { ReferenceCache } from './modules/instruments/reference-data';
 
 export interface RunningApi {
@@ -35,6 +36,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
     await startBookingJobs(ctx);
     await startUsageJobs(ctx);
     await startBillingJobs(ctx);
+    await startAuthJobs(ctx);
   }
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {

@@ -7,3 +7,4 @@ export * from './usage/usage.schemas';
 export * from './engine';
 export * from './billing/billing.schemas';
 export * from './facility/instrument-admin.schemas';
+export * from './time/iso-schemas';

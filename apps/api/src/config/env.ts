@@ -27,11 +27,19 @@ const envSchema = z.object({
   STRIPE_HOST: z.string().optional(),
   STRIPE_PORT: z.coerce.number().int().min(1).max(65535).optional(),
   STRIPE_PROTOCOL: z.enum(['http', 'https']).optional(),
-  STRIPE_WEBHOOK_SECRET: z.string().min(1).default('whsec_femtoslot_local'),
+  // No default here: the local fake's value is public, so production must set its own (checked in loadEnv).
+  STRIPE_WEBHOOK_SECRET: z.string().min(1).optional(),
+  /** Requests for e-mailed links (reset, invitation) per address per 15 minutes. */
+  MAIL_RATE_LIMIT: z.coerce.number().int().positive().default(20),
 });
 
-export type Env = Omit<z.infer<typeof envSchema>, 'JWT_SECRET' | 'APP_URL'> & {
+/** Secrets that have a convenience value outside production and must be set in production. */
+const requiredInProduction = ['JWT_SECRET', 'STRIPE_WEBHOOK_SECRET'] as const;
+const LOCAL_WEBHOOK_SECRET = 'whsec_femtoslot_local';
+
+export type Env = Omit<z.infer<typeof envSchema>, 'JWT_SECRET' | 'APP_URL' | 'STRIPE_WEBHOOK_SECRET'> & {
   JWT_SECRET: string;
+  STRIPE_WEBHOOK_SECRET: string;
   APP_URL: string;
 };
 
@@ -52,12 +60,14 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Configuration is invalid (see .env.example):\n${lines.join('\n')}`);
   }
   const env = parsed.data;
-  if (env.NODE_ENV === 'production' && !env.JWT_SECRET) {
-    throw new Error('Configuration is invalid (see .env.example):\n  JWT_SECRET: required in production');
+  const missing = env.NODE_ENV === 'production' ? requiredInProduction.filter((name) => !env[name]) : [];
+  if (missing.length > 0) {
+    throw new Error(`Configuration is invalid (see .env.example):\n${missing.map((name) => `  ${name}: required in production`).join('\n')}`);
   }
   return {
     ...env,
     JWT_SECRET: env.JWT_SECRET ?? developmentSecret(env.DATA_DIR),
+    STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET ?? LOCAL_WEBHOOK_SECRET,
     APP_URL: env.APP_URL ?? `http://${env.HOST}:${env.PORT}`,
   };
 }

@@ -60,3 +60,8 @@ import { RequiredOdBands1765700000000 } from './migrations/1765700000000-require
 // Invoices keep the PO number they were issued against.
 import { InvoicePoNumber1765500000000 } from './migrations/1765500000000-invoice-po-number';
 (migrations as unknown as (new () => object)[]).push(InvoicePoNumber1765500000000);
+// Signing out ends that session: its token id is refused until the token expires.
+import { RevokedSessions1765300000000 } from './migrations/1765300000000-revoked-sessions';
+import { RevokedSession } from '../modules/auth/revoked-session.entity';
+(entities as unknown as (new () => object)[]).push(RevokedSession);
+(migrations as unknown as (new () => object)[]).push(RevokedSessions1765300000000);

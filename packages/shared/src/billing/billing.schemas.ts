@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { organisationKindSchema } from '../auth/auth.schemas';
+import { calendarDateSchema, calendarMonthSchema } from '../time/iso-schemas';
 
-const isoDate = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use a date as YYYY-MM-DD');
+const isoDate = calendarDateSchema;
 const minorAmount = z.number().int().min(0).max(100_000_000);
 const classRates = z.strictObject({ standard: minorAmount, dfg: minorAmount });
 
@@ -23,7 +24,7 @@ export type RateCardInput = z.input<typeof rateCardInputSchema>;
 export const ratePreviewInputSchema = z.strictObject({ bookingId: z.uuid() });
 
 export const billingPeriodInputSchema = z.strictObject({
-  month: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'Use a month as YYYY-MM'),
+  month: calendarMonthSchema,
 });
 export type BillingPeriodInput = z.infer<typeof billingPeriodInputSchema>;
 

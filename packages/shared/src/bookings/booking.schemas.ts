@@ -1,6 +1,7 @@
 import { z } from 'zod';
+import { isoInstantSchema } from '../time/iso-schemas';
 
-const isoInstant = z.iso.datetime({ offset: true, message: 'Use an ISO 8601 instant with its offset, e.g. 2026-12-03T14:00:00Z' });
+const isoInstant = isoInstantSchema();
 const uuid = z.uuid({ message: 'Must be an id' });
 const nm = z.number().positive('Wavelengths are positive').max(100_000, 'Wavelength is implausibly long');
 

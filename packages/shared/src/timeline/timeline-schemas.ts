@@ -1,9 +1,10 @@
 import { z } from 'zod';
 import { changeoverModelSchema, sourceStateSchema } from '../changeover/changeover-model';
+import { isoInstantSchema } from '../time/iso-schemas';
 
 /** An instant: a Date, or ISO 8601 text that carries its offset (times without a zone are refused). */
 export const instantInputSchema = z
-  .union([z.date(), z.iso.datetime({ offset: true })])
+  .union([z.date(), isoInstantSchema()])
   .transform((v) => (v instanceof Date ? v : new Date(v)));
 export type InstantInput = z.input<typeof instantInputSchema>;
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
+import { isoInstantSchema } from '../time/iso-schemas';
 
-const isoInstant = z.iso.datetime({ offset: true, message: 'Use an ISO 8601 instant with its offset' });
+const isoInstant = isoInstantSchema('Use an ISO 8601 instant with its offset');
 const nm = z.number().positive('Wavelengths are positive').max(100_000);
 
 import { pulseShapes } from '../metrology/autocorrelation';

@@ -14,6 +14,23 @@ describe('configuration', () => {
     expect(() => loadEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir })).toThrow(/JWT_SECRET: required in production/);
   });
 
+  it('when in production without STRIPE_WEBHOOK_SECRET, then start-up fails naming it instead of using the public local value', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir, JWT_SECRET: 'p'.repeat(48) };
+    expect(() => loadEnv(production)).toThrow(/STRIPE_WEBHOOK_SECRET: required in production/);
+    expect(loadEnv({ ...production, STRIPE_WEBHOOK_SECRET: 'whsec_real_one' }).STRIPE_WEBHOOK_SECRET).toBe('whsec_real_one');
+  });
+
+  it('when in production without either secret, then start-up fails naming both', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    expect(() => loadEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir })).toThrow(/JWT_SECRET: required in production\n\s+STRIPE_WEBHOOK_SECRET: required in production/);
+  });
+
+  it('when in development without STRIPE_WEBHOOK_SECRET, then the local fake\'s value is used', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    expect(loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir }).STRIPE_WEBHOOK_SECRET).toBe('whsec_femtoslot_local');
+  });
+
   it('when in development without JWT_SECRET, then one is generated once and kept in the data folder', () => {
     const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
     const first = loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir });

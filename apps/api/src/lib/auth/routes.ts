@@ -1,6 +1,8 @@
 import type { Request, RequestHandler, Response, Router } from 'express';
 import type { Role } from '@femtoslot/shared';
 import { AppError, forbidden, unauthenticated } from '../errors/app-error';
+import { idParamGuard, refuseUnstorableText } from '../http/request-guards';
+import { isUuid } from '../ids';
 
 export type Access = 'public' | 'signed_in' | readonly Role[];
 
@@ -26,8 +28,15 @@ export function guard(access: Access): RequestHandler {
   };
 }
 
+/**
+ * Every row gets the same edges, in this order: who may call it, ids that are UUIDs, the row's own parsers and limits
+ * (multipart, rate limits), then no unstorable text anywhere in what was parsed.
+ */
 export function mount(router: Router, routes: RouteDef[]): void {
-  for (const r of routes) router[r.method](r.path, guard(r.access), ...(r.before ?? []), r.handler);
+  for (const r of routes) {
+    const ids = idParamGuard(r.path);
+    router[r.method](r.path, guard(r.access), ...(ids ? [ids] : []), ...(r.before ?? []), refuseUnstorableText, r.handler);
+  }
 }
 
 export function currentUser(req: Request) {
@@ -37,6 +46,6 @@ export function currentUser(req: Request) {
 
 export function param(req: Request, name: string): string {
   const v = req.params[name];
-  if (typeof v !== 'string' || !/^[0-9a-f-]{36}$/i.test(v)) throw new AppError('not_found', 'No such record', 404);
+  if (!isUuid(v)) throw new AppError('not_found', 'No such record', 404);
   return v;
 }

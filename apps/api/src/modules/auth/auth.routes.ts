@@ -2,7 +2,7 @@ import { forgotPasswordInputSchema, loginInputSchema, setPasswordInputSchema } f
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppContext } from '../../lib/context';
 import { AppError, unauthenticated } from '../../lib/errors/app-error';
-import { clearSession, issueSession } from '../../lib/auth/session';
+import { clearSession, issueSession, revokeSession } from '../../lib/auth/session';
 import type { RouteDef } from '../../lib/auth/routes';
 import { User } from '../users/user.entity';
 import { toUserDto } from '../users/user.dto';
@@ -22,7 +22,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     handler: tooMany('Too many sign-in attempts. Wait a few minutes and try again.'),
   });
   const mailLimiter = rateLimit({
-    windowMs: 15 * 60_000, limit: 20, standardHeaders: 'draft-8', legacyHeaders: false,
+    windowMs: 15 * 60_000, limit: ctx.env.MAIL_RATE_LIMIT, standardHeaders: 'draft-8', legacyHeaders: false,
     handler: tooMany('Too many requests for e-mail links. Wait a few minutes and try again.'),
   });
 
@@ -38,7 +38,7 @@ export function authRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/auth/logout', access: 'public',
-      handler: (_req, res) => { clearSession(ctx, res); res.status(204).end(); },
+      handler: async (req, res) => { await revokeSession(ctx, req); clearSession(ctx, res); res.status(204).end(); },
     },
     {
       method: 'get', path: '/auth/me', access: 'public',

@@ -22,9 +22,20 @@ export function authService(ctx: AppContext) {
     return user;
   }
 
+  /**
+   * Answers in the same time whether or not the address has an account: the request only queues a job with the address
+   * (one pg-boss insert, the same statement for every address); the lookup, the token and the e-mail happen in the
+   * worker, off the request path (sendPasswordReset). Before, a known address also wrote the token and the mail inside
+   * the request: bench §7 measured medians of 105 ms against 31 ms under load (now 40 against 43 ms: noise).
+   */
   async function requestPasswordReset(input: ForgotPasswordInput): Promise<void> {
+    await ctx.outbox.sendJob(PASSWORD_RESET_QUEUE, { email: input.email });
+  }
+
+  /** The worker's half: an active account with a password gets a single-use link; any other address gets nothing. */
+  async function sendPasswordReset(input: ForgotPasswordInput): Promise<void> {
     const user = await users().findOne({ where: { email: input.email, active: true } });
-    if (!user || !user.passwordHash) return; // same answer either way: no account discovery
+    if (!user || !user.passwordHash) return;
     await ctx.db.transaction(async (m) => {
       const { token, hash } = newOpaqueToken();
       await m.getRepository(AuthToken).insert({
@@ -69,5 +80,13 @@ export function authService(ctx: AppContext) {
     });
   }
 
-  return { login, requestPasswordReset, peekToken, setPasswordWithToken };
+  return { login, requestPasswordReset, sendPasswordReset, peekToken, setPasswordWithToken };
+}
+
+export const PASSWORD_RESET_QUEUE = 'auth-password-reset';
+
+/** Works the password-reset queue (every API process with workers does). */
+export async function startAuthJobs(ctx: AppContext): Promise<void> {
+  const service = authService(ctx);
+  await ctx.outbox.work<ForgotPasswordInput>(PASSWORD_RESET_QUEUE, (data) => service.sendPasswordReset(data));
 }

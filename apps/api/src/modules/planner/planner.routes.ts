@@ -1,10 +1,11 @@
+import { calendarDateSchema, isoInstantSchema } from '@femtoslot/shared';
 import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
 import { currentUser, type RouteDef } from '../../lib/auth/routes';
 import { plannerService } from './planner.service';
 
-const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as YYYY-MM-DD').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'Not a calendar date');
-const instant = z.iso.datetime({ offset: true });
+const date = calendarDateSchema;
+const instant = isoInstantSchema();
 const adHocSchema = z.object({
   instrumentId: z.uuid(),
   date,

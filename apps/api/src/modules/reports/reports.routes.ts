@@ -1,4 +1,4 @@
-import { utilisationQuerySchema } from '@femtoslot/shared';
+import { isoInstantSchema, utilisationQuerySchema } from '@femtoslot/shared';
 import { stringify } from 'csv-stringify/sync';
 import type { Response } from 'express';
 import { z } from 'zod';
@@ -7,7 +7,7 @@ import { currentUser, type RouteDef } from '../../lib/auth/routes';
 import { reportsService } from './reports.service';
 
 const coverageQuerySchema = z
-  .object({ from: z.iso.datetime({ offset: true }), to: z.iso.datetime({ offset: true }), instrumentId: z.uuid().optional() })
+  .object({ from: isoInstantSchema(), to: isoInstantSchema(), instrumentId: z.uuid().optional() })
   .refine((q) => Date.parse(q.to) > Date.parse(q.from), { message: 'to must be after from', path: ['to'] });
 
 /** RFC 4180: CRLF line ends, fields with commas, quotes or line breaks quoted and quotes doubled (csv-stringify). */

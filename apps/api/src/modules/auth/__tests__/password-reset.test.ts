@@ -1,4 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AsyncLocalStorage } from 'node:async_hooks';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type { AppContext } from '../../../lib/context';
+import { authService } from '../auth.service';
 import { linkToken, waitForMail } from '../../../test-support/maildev';
 import { makePeople, startTestApi, type TestApi } from '../../../test-support/test-api';
 import { OutboxMessage } from '../../../lib/mail/outbox-message.entity';
@@ -49,10 +52,22 @@ describe('password reset by e-mail', () => {
     expect((await t.http().get('/api/auth/me').set('cookie', cookie)).status).toBe(200);
   });
 
-  it('when the e-mail has no account, then the answer is the same 202 and no mail is queued', async () => {
+  it('when the e-mail has no account, then the answer is the same 202 and the worker queues no mail', async () => {
     const r = await t.http().post('/api/auth/forgot-password').send({ email: 'ghost-user@example.test' });
     expect(r.status).toBe(202);
+    await authService(t.api.ctx).sendPasswordReset({ email: 'ghost-user@example.test' });
     expect(await t.api.ctx.db.getRepository(OutboxMessage).countBy({ toAddress: 'ghost-user@example.test' })).toBe(0);
+  });
+
+  it('when a reset is asked for a known and for an unknown e-mail, then the request does the same work on both paths', async () => {
+    const { users } = await makePeople(t, ['member']);
+    const ctx = t.api.ctx;
+    const known = await workDoneBy(ctx, () => authService(ctx).requestPasswordReset({ email: users.member!.email }));
+    const unknown = await workDoneBy(ctx, () => authService(ctx).requestPasswordReset({ email: 'nobody-by-this-name@example.test' }));
+    expect(known.length).toBeGreaterThan(0);
+    expect(unknown).toEqual(known);
+    // The known address still gets its link, off the request path.
+    expect(linkToken(await waitForMail(users.member!.email, { subjectIncludes: 'Reset' }))).toMatch(/^[\w-]{40,}$/);
   });
 
   it('when the new password is too short, then 400 and the token is not spent', async () => {
@@ -63,3 +78,28 @@ describe('password reset by e-mail', () => {
     expect((await t.http().post('/api/auth/reset-password').send({ token, password: 'long enough now' })).status).toBe(200);
   });
 });
+
+/**
+ * What a call does against the database and the job queue, as a list of (operation, shape) entries; only calls made
+ * from inside `fn`'s own async chain are listed, so the API's background workers running meanwhile do not count.
+ */
+async function workDoneBy(ctx: AppContext, fn: () => Promise<unknown>): Promise<string[]> {
+  const scope = new AsyncLocalStorage<true>();
+  const seen: string[] = [];
+  const shape = (v: unknown): string => typeof v === 'function' ? `fn:${v.name}` : typeof v === 'string' ? v.replace(/\s+/g, ' ').slice(0, 80)
+    : v && typeof v === 'object' ? `{${Object.keys(v).sort().join(',')}}` : typeof v;
+  const targets: [object, string[]][] = [[ctx.db, ['query', 'transaction', 'getRepository', 'createQueryBuilder']], [ctx.outbox, ['enqueue', 'sendJob', 'sendJobs']]];
+  const spies = targets.flatMap(([target, names]) => names.map((name) => {
+    const original = (target as Record<string, (...a: unknown[]) => unknown>)[name]!;
+    return vi.spyOn(target as Record<string, (...a: unknown[]) => unknown>, name).mockImplementation(function (this: unknown, ...args: unknown[]) {
+      if (scope.getStore()) seen.push(`${name}(${args.slice(0, 2).map(shape).join(', ')})`);
+      return (original as (...a: unknown[]) => unknown).apply(this, args);
+    });
+  }));
+  try {
+    await scope.run(true, fn);
+  } finally {
+    for (const s of spies) s.mockRestore();
+  }
+  return seen;
+}
