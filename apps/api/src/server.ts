@@ -28,6 +28,7 @@ import { usageRoutes } from './modules/usage/usage.routes';
 import { billingRoutes } from './modules/billing/billing.routes';
 import { rateCardsRoutes } from './modules/rate-cards/rate-cards.routes';
 import { invoicesRoutes } from './modules/invoices/invoices.routes';
+import { beamTimeRoutes } from './modules/beam-time/beam-time.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 
 /** The router table: every API route with its access rule, mounted under /api. */
@@ -51,6 +52,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...rateCardsRoutes(ctx),
     ...billingRoutes(ctx),
     ...invoicesRoutes(ctx),
+    ...beamTimeRoutes(ctx),
   ];
 }
 
