@@ -78,6 +78,9 @@ export const createRoutes = (queryClient: QueryClient): RouteObject[] => [
               areaRoute('people', paths.people, async () => ({
                 Component: (await import('./routes/people/people')).PeoplePage,
               })),
+              areaRoute('beam-time', paths.myBeamTime, async () => ({
+                Component: (await import('./routes/beam-time/my-beam-time')).MyBeamTimePage,
+              })),
             ],
           },
         ],

@@ -99,3 +99,9 @@ export const rateCardKeys = {
   all: ['rate-cards'] as const,
   list: () => [...rateCardKeys.all, 'list'] as const,
 };
+
+export const beamTimeKeys = {
+  all: ['beam-time'] as const,
+  mine: () => [...beamTimeKeys.all, 'mine'] as const,
+  spend: (query: { organisationId?: string; from?: string }) => [...beamTimeKeys.all, 'spend', query] as const,
+};
