@@ -29,6 +29,7 @@ import { billingRoutes } from './modules/billing/billing.routes';
 import { rateCardsRoutes } from './modules/rate-cards/rate-cards.routes';
 import { invoicesRoutes } from './modules/invoices/invoices.routes';
 import { estimatesRoutes } from './modules/estimates/estimates.routes';
+import { beamTimeRoutes } from './modules/beam-time/beam-time.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 import { instrumentAdminRoutes } from './modules/instruments/instrument-admin.routes';
 
@@ -55,6 +56,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...invoicesRoutes(ctx),
     ...instrumentAdminRoutes(ctx),
     ...estimatesRoutes(ctx),
+    ...beamTimeRoutes(ctx),
   ];
 }
 

@@ -81,6 +81,9 @@ export const createRoutes = (queryClient: QueryClient): RouteObject[] => [
               areaRoute('sources', paths.sources, async () => ({
                 Component: (await import('./routes/instruments/sources')).SourcesPage,
               })),
+              areaRoute('beam-time', paths.myBeamTime, async () => ({
+                Component: (await import('./routes/beam-time/my-beam-time')).MyBeamTimePage,
+              })),
             ],
           },
         ],

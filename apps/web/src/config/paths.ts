@@ -13,6 +13,7 @@ export const paths = {
   settings: '/settings',
   people: '/people',
   sources: '/sources',
+  myBeamTime: '/beam-time',
 } as const;
 
 export const sessionLogPath = (bookingId: string) => `/sessions/${encodeURIComponent(bookingId)}`;

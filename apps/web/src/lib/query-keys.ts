@@ -109,3 +109,9 @@ export const estimateKeys = {
   all: ['estimates'] as const,
   forRequest: (body: unknown) => [...estimateKeys.all, 'request', body] as const,
 };
+
+export const beamTimeKeys = {
+  all: ['beam-time'] as const,
+  mine: () => [...beamTimeKeys.all, 'mine'] as const,
+  spend: (query: { organisationId?: string; from?: string }) => [...beamTimeKeys.all, 'spend', query] as const,
+};

@@ -113,13 +113,32 @@ export function linesForBooking(look: StatementLookups, facility: FacilitySettin
 
 export type { AccountStatement };
 
+/** A booking to price: with its session log (usage), or without (a cancellation fee or a displacement). */
+export interface PricedItem { b: TimelineBlock; log: UsageLog | null }
+
+/**
+ * The lines of each item, priced by the rate card in force on its facility-local day (the session's start; the
+ * cancellation's instant; the booked start of a displacement), with the lookups they were priced from.
+ */
+export async function priceItems(m: EntityManager, facility: FacilitySettings, items: PricedItem[]): Promise<{ lines: PriceLine[][]; look: StatementLookups }> {
+  const tz = facility.timeZone;
+  const days = items.map((p) => localDate(p.log ? p.log.actualStartsAt : p.b.status === 'cancelled' ? p.b.cancelledAt! : p.b.startsAt, tz));
+  const look = (withChangeover: boolean) => loadStatementLookups(m, items.map((p) => p.b), withChangeover);
+  if (!items.length) return { lines: [], look: await look(false) };
+  const sorted = [...days].sort();
+  const cardOn = await rateCardsBetween(m, sorted[0]!, sorted[sorted.length - 1]!);
+  // Checked in item order, so a missing card is reported for the first day that needs it.
+  const cards = days.map((day) => cardOn(day));
+  const lookups = await look(cards.some((c) => c.changeoverSharePercent > 0));
+  return { lines: items.map((p, i) => linesForBooking(lookups, facility, cards[i]!, p.b, p.log).lines), look: lookups };
+}
+
 /**
  * The statement of a month: confirmed, unbilled session logs that started in it; cancellation fees of bookings
  * cancelled in it; zero lines for bookings displaced by maintenance that were to start in it. Each line is priced by
  * the rate card in force on its facility-local day. A fixed handful of queries, whatever the number of sessions.
  */
 export async function computeStatement(m: EntityManager, facility: FacilitySettings, bounds: { startsAt: Date; endsAt: Date }): Promise<AccountStatement[]> {
-  const tz = facility.timeZone;
   const logs: UsageLog[] = await m.getRepository(UsageLog).createQueryBuilder('u')
     .where(`u.status = 'confirmed' AND u.actual_starts_at >= :from AND u.actual_starts_at < :to`, { from: bounds.startsAt, to: bounds.endsAt })
     .orderBy('u.actual_starts_at', 'ASC').getMany();
@@ -130,21 +149,13 @@ export async function computeStatement(m: EntityManager, facility: FacilitySetti
     .where(`b.kind = 'booking' AND ((b.status = 'cancelled' AND b.cancellation_fee_percent > 0 AND b.cancelled_at >= :from AND b.cancelled_at < :to)
       OR (b.status = 'displaced' AND b.starts_at >= :from AND b.starts_at < :to))`, { from: bounds.startsAt, to: bounds.endsAt })
     .orderBy('b.starts_at', 'ASC').getMany();
-  const priced = [
-    ...logs.map((log) => ({ b: bookingById.get(log.bookingId)!, log, day: localDate(log.actualStartsAt, tz) })),
-    ...others.map((b) => ({ b, log: null, day: localDate(b.status === 'cancelled' ? b.cancelledAt! : b.startsAt, tz) })),
-  ];
+  const priced: PricedItem[] = [...logs.map((log) => ({ b: bookingById.get(log.bookingId)!, log })), ...others.map((b) => ({ b, log: null }))];
   if (!priced.length) return [];
-
-  const days = priced.map((p) => p.day).sort();
-  const cardOn = await rateCardsBetween(m, days[0]!, days[days.length - 1]!);
-  // Checked in statement order, so a missing card is reported for the first day that needs it.
-  const cards = priced.map((p) => cardOn(p.day));
-  const look = await loadStatementLookups(m, [...logBookings, ...others], cards.some((c) => c.changeoverSharePercent > 0));
+  const { lines: pricedLines, look } = await priceItems(m, facility, priced);
 
   const byAccount = new Map<string, PriceLine[]>();
   priced.forEach((p, i) => {
-    const { lines } = linesForBooking(look, facility, cards[i]!, p.b, p.log);
+    const lines = pricedLines[i]!;
     if (!lines.length) return;
     const list = byAccount.get(p.b.accountId!);
     if (list) list.push(...lines);

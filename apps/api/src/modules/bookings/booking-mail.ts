@@ -1,8 +1,9 @@
+import addressparser from 'nodemailer/lib/addressparser';
 import type { EntityManager } from 'typeorm';
 import type { AppContext } from '../../lib/context';
 import type { OutboxJob } from '../../lib/mail/outbox';
 import type { ReferenceData } from '../instruments/reference-data';
-import { buildCalendar } from '../../lib/calendar/ics';
+import { buildCalendar, type IcsPerson } from '../../lib/calendar/ics';
 import { layout, type RenderedMail } from '../../lib/mail/templates';
 import { User } from '../users/user.entity';
 import type { TimelineBlock } from './timeline-block.entity';
@@ -37,6 +38,17 @@ const subjects: Record<BookingMailKind, string> = {
   displaced: 'Beam time displaced by maintenance — please rebook',
   reminder: 'Reminder: your beam time starts in 24 hours',
 };
+
+/** The address mail is sent from (MAIL_FROM, "Name <address>"), the organiser of every scheduling message. */
+const senders = new Map<string, string>();
+function senderAddress(mailFrom: string): string {
+  let address = senders.get(mailFrom);
+  if (address === undefined) {
+    address = addressparser(mailFrom, { flatten: true })[0]?.address ?? mailFrom;
+    senders.set(mailFrom, address);
+  }
+  return address;
+}
 
 const SAFETY_LINE = 'Class 4 laser: wear eyewear rated for every wavelength on the table at the OD set by the laser-safety officer, and follow their instructions and local rules.';
 
@@ -78,6 +90,10 @@ export async function queueBookingMail(
   }
   const withCalendar = kind === 'approved' || kind === 'moved' || kind === 'cancelled' || kind === 'displaced';
   const cancelled = kind === 'cancelled' || kind === 'displaced';
+  // RFC 5546 §3.2.2 (REQUEST) and §3.2.5 (CANCEL): the facility organises, the booker attends. The booker asked for
+  // the slot, so the invitation records them as having accepted and asks for no reply (the app reads none).
+  const organizer: IcsPerson = { name: facility.name, email: senderAddress(ctx.env.MAIL_FROM) };
+  const attendee = { name: user.name, email: user.email, role: 'REQ-PARTICIPANT' as const, rsvp: false, ...(cancelled ? {} : { partstat: 'ACCEPTED' as const }) };
   const attachments = withCalendar
     ? [{
         filename: cancelled ? 'cancelled-beam-time.ics' : 'beam-time.ics',
@@ -85,6 +101,7 @@ export async function queueBookingMail(
         content: Buffer.from(buildCalendar([{
           id: b.id, startsAt: b.startsAt, endsAt: b.endsAt, title: `Beam time: ${cfg.name} ${target}`, description: b.purpose ?? '',
           location: `${facility.name} — ${instrument.name}`, status: cancelled ? 'CANCELLED' : 'CONFIRMED', sequence: b.sequence,
+          organizer, attendees: [attendee],
         }], cancelled ? 'CANCEL' : 'REQUEST')).toString('base64'),
       }]
     : [];

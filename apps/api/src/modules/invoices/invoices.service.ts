@@ -1,5 +1,5 @@
 import { formatMoney, minorToDecimalString } from '@femtoslot/shared/billing/money';
-import { stringify } from 'csv-stringify/sync';
+import { toCsv } from '@femtoslot/shared/csv/csv-export';
 import { In } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
@@ -18,9 +18,6 @@ export function toInvoiceDto(i: Invoice, account: Account | undefined, month: st
     hostedInvoiceUrl: i.hostedInvoiceUrl, lines: i.lines, pdfUrl: `/api/invoices/${i.id}.pdf`, poNumber: i.poNumber, issuedAt: i.createdAt.toISOString(),
   };
 }
-
-// RFC 4180: CRLF record delimiters, fields quoted when they hold a comma, quote or line break.
-const csv = (rows: unknown[][]) => stringify(rows, { record_delimiter: 'windows' });
 
 export function invoicesService(ctx: AppContext) {
   const db = ctx.db;
@@ -49,7 +46,7 @@ export function invoicesService(ctx: AppContext) {
 
   async function invoicesCsv(viewer: SessionUser): Promise<string> {
     const rows = await list(viewer);
-    return csv([
+    return toCsv([
       ['number', 'month', 'account', 'kind', 'status', 'currency', 'total', 'amount_paid', 'due_date', 'stripe_invoice_number', 'hosted_invoice_url'],
       ...rows.map((r) => [r.number, r.month, r.accountName, r.kind, r.status, r.currency, minorToDecimalString(r.totalMinor, r.currency), minorToDecimalString(r.amountPaidMinor, r.currency), r.dueDate ?? '', r.stripeInvoiceNumber ?? '', r.hostedInvoiceUrl ?? '']),
     ]);
@@ -59,7 +56,7 @@ export function invoicesService(ctx: AppContext) {
     const rows = await db.getRepository(JournalLine).find({ order: { createdAt: 'ASC', lineKey: 'ASC' }, take: 20_000 });
     const periods = new Map((rows.length ? await db.getRepository(BillingPeriod).findBy({ id: In([...new Set(rows.map((r) => r.periodId))]) }) : []).map((p) => [p.id, p.month]));
     const invoices = new Map((rows.length ? await db.getRepository(Invoice).findBy({ id: In([...new Set(rows.map((r) => r.invoiceId))]) }) : []).map((i) => [i.id, i.number]));
-    return csv([
+    return toCsv([
       ['period', 'journal_number', 'cost_centre', 'currency', 'amount', 'amount_minor', 'description'],
       ...rows.map((r) => [periods.get(r.periodId) ?? '', invoices.get(r.invoiceId) ?? '', r.costCentreCode, r.currency.trim(), minorToDecimalString(r.amountMinor, r.currency.trim()), r.amountMinor, r.description]),
     ]);

@@ -1,5 +1,5 @@
 import { isoInstantSchema, utilisationQuerySchema } from '@femtoslot/shared';
-import { stringify } from 'csv-stringify/sync';
+import { toCsv, type CsvCell } from '@femtoslot/shared/csv/csv-export';
 import type { Response } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
@@ -10,9 +10,8 @@ const coverageQuerySchema = z
   .object({ from: isoInstantSchema(), to: isoInstantSchema(), instrumentId: z.uuid().optional() })
   .refine((q) => Date.parse(q.to) > Date.parse(q.from), { message: 'to must be after from', path: ['to'] });
 
-/** RFC 4180: CRLF line ends, fields with commas, quotes or line breaks quoted and quotes doubled (csv-stringify). */
-export function sendCsv(res: Response, filename: string, columns: string[], rows: unknown[][]): void {
-  res.type('text/csv; charset=utf-8').attachment(filename).send(stringify([columns, ...rows], { record_delimiter: 'windows' }));
+export function sendCsv(res: Response, filename: string, columns: string[], rows: CsvCell[][]): void {
+  res.type('text/csv; charset=utf-8').attachment(filename).send(toCsv([columns, ...rows]));
 }
 
 export function reportsRoutes(ctx: AppContext): RouteDef[] {

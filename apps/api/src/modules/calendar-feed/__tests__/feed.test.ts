@@ -38,6 +38,29 @@ describe('personal iCalendar feed (RFC 5545)', () => {
     expect(ev.description).toBe(long);
   });
 
+  it('when a purpose holds a bare CR, other control characters and ; , \\, then DESCRIPTION is escaped per RFC 5545 §3.3.11, lines stay folded, and node-ical reads the text back', async () => {
+    const { instrument, configs } = await makeInstrument(t);
+    const me = await makeBooker(t);
+    const start = hoursFromNow(34);
+    const purpose = `Pump scan\rX-INJECTED:1\u0001 bell\u0007 esc\u001b; a, b\\c\r\nnext\nline\ttab ${'λ'.repeat(40)}`;
+    const b = await me.agent.post('/api/bookings').send({ instrumentId: instrument.id, configurationId: configs.fundamental!.id, accountId: me.account.id, startsAt: start.toISOString(), endsAt: plusHours(start, 2).toISOString(), targetNm: 800, purpose });
+    expect(b.status).toBe(201);
+    const text: string = (await t.http().get(new URL((await me.agent.get('/api/calendar/feed')).body.url).pathname)).text;
+    // RFC 5545 §3.1: CRLF line ends, at most 75 octets a line; §3.3.11: no CONTROL character but HTAB inside a TEXT value.
+    expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
+    for (const line of text.split('\r\n')) {
+      expect(Buffer.byteLength(line, 'utf8')).toBeLessThanOrEqual(75);
+      expect(line).not.toMatch(/[\u0000-\u0008\u000a-\u001f\u007f]/);
+    }
+    expect(text).not.toMatch(/\r\nX-INJECTED/);
+    const unfolded = text.replace(/\r\n[ \t]/g, '');
+    // §3.3.11: CR, LF and CRLF become \n; other controls but HTAB go; backslash, semicolon and comma are escaped.
+    const expected = `Pump scan\\nX-INJECTED:1 bell esc\\; a\\, b\\\\c\\nnext\\nline\ttab ${'λ'.repeat(40)}`;
+    expect(unfolded).toContain(`\r\nDESCRIPTION:${expected}\r\n`);
+    const events = Object.values(ical.sync.parseICS(text)).filter((v) => v.type === 'VEVENT') as unknown as { uid: string; description: string }[];
+    expect(events.find((e) => e.uid === `${b.body.booking.id}@femtoslot`)!.description).toBe(`Pump scan\nX-INJECTED:1 bell esc; a, b\\c\nnext\nline\ttab ${'λ'.repeat(40)}`);
+  });
+
   it('when the token is regenerated, then the old URL stops working; a made-up token is 404', async () => {
     const me = await makeBooker(t);
     const first = new URL((await me.agent.get('/api/calendar/feed')).body.url).pathname;
