@@ -7,7 +7,8 @@ import { TimelineBlock } from '../bookings/timeline-block.entity';
 import type { FacilitySettings } from '../facility/facility-settings.entity';
 import { Invoice } from '../invoices/invoice.entity';
 import { UsageLog } from '../usage/usage-log.entity';
-import { monthBounds, priceItems, type PricedItem } from './statement';
+import { monthBounds } from '@femtoslot/shared/billing/billing-month';
+import { priceItems, type PricedItem } from './statement';
 
 export interface SpendScope {
   organisation: { id: string; name: string };
