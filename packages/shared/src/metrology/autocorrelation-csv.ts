@@ -21,22 +21,22 @@ export interface ParsedTrace {
  * regular expression (a backtracking pattern is quadratic on a long run of digits).
  */
 function isDecimal(text: string): boolean {
-  let i = 0;
   const n = text.length;
-  const digitAt = (k: number) => k < n && text.charCodeAt(k) >= 48 && text.charCodeAt(k) <= 57;
-  if (text[i] === '+' || text[i] === '-') i += 1;
+  let i = 0;
+  let c = text.charCodeAt(0);
+  if (c === 43 || c === 45) c = text.charCodeAt(++i); // + -
   let mantissaDigits = 0;
-  while (digitAt(i)) { i += 1; mantissaDigits += 1; }
-  if (text[i] === '.') {
-    i += 1;
-    while (digitAt(i)) { i += 1; mantissaDigits += 1; }
+  while (c >= 48 && c <= 57) { mantissaDigits += 1; c = text.charCodeAt(++i); }
+  if (c === 46) { // .
+    c = text.charCodeAt(++i);
+    while (c >= 48 && c <= 57) { mantissaDigits += 1; c = text.charCodeAt(++i); }
   }
   if (mantissaDigits === 0) return false;
-  if (text[i] === 'e' || text[i] === 'E') {
-    i += 1;
-    if (text[i] === '+' || text[i] === '-') i += 1;
-    if (!digitAt(i)) return false;
-    while (digitAt(i)) i += 1;
+  if (c === 101 || c === 69) { // e E
+    c = text.charCodeAt(++i);
+    if (c === 43 || c === 45) c = text.charCodeAt(++i);
+    if (!(c >= 48 && c <= 57)) return false;
+    while (c >= 48 && c <= 57) c = text.charCodeAt(++i);
   }
   return i === n;
 }
@@ -63,6 +63,7 @@ function detectDelimiter(firstLine: string): ParsedTrace['delimiter'] {
  * trimmed. A quoted cell may not span lines: a trace holds numbers and a short header.
  */
 function splitLine(line: string, delimiter: string, lineNumber: number): string[] {
+  if (!line.includes('"') && !line.includes('#')) return line.split(delimiter).map((cell) => cell.trim());
   const cells: string[] = [];
   let cell = '';
   let quoted = false;
@@ -110,7 +111,7 @@ function* traceReader(text: string): Generator<void, ParsedTrace> {
         line: lineNumber, length: end - start, maximum: MAX_TRACE_LINE_CHARS,
       });
     }
-    const line = source.slice(start, end).replace(/\r$/, '');
+    const line = source.slice(start, end > start && source.charCodeAt(end - 1) === 13 ? end - 1 : end);
     start = end + 1;
     if (line.trim() !== '') {
       delimiter ??= detectDelimiter(line);

@@ -111,7 +111,10 @@ export function analysePoints(points: Array<[number, number]>, shape: PulseShape
       minimum: MIN_TRACE_POINTS,
     });
   }
-  const sorted = [...input.points].sort((a, b) => a[0] - b[0]);
+  // Scans are nearly always recorded in delay order: check in one pass before paying for a sort.
+  let inOrder = true;
+  for (let i = 1; i < input.points.length && inOrder; i += 1) inOrder = input.points[i - 1]![0] <= input.points[i]![0];
+  const sorted = inOrder ? input.points : [...input.points].sort((a, b) => a[0] - b[0]);
   const delays = sorted.map((p) => p[0]);
   const count = sorted.length;
   const wing = Math.max(1, Math.floor(count * WING_FRACTION));
