@@ -53,3 +53,7 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Session-log bounds: the facility's window for actual times, a segment's spectral FWHM.
+import { SessionLogBounds1765400000000 } from './migrations/1765400000000-session-log-bounds';
+(migrations as unknown as (new () => object)[]).push(SessionLogBounds1765400000000);

@@ -16,6 +16,8 @@ export const usageSegmentInputSchema = z
     /** Typed by the user, or computed from an uploaded trace (then `traceAttachmentId` and `pulseShape` are set). */
     pulseFwhmFs: z.number().positive().max(1_000_000).nullable().optional(),
     pulseShape: z.enum(pulseShapes).nullable().optional(),
+    /** Spectral FWHM (nm) measured with the pulse: the server then also refuses a pulse below the transform limit. */
+    spectralFwhmNm: z.number().positive().max(100_000).nullable().optional(),
     traceAttachmentId: z.uuid().nullable().optional(),
     notes: z.string().trim().max(2000).optional(),
   })
@@ -62,6 +64,7 @@ export interface UsageSegmentDto {
   averagePowerMw: number | null;
   pulseFwhmFs: number | null;
   pulseShape: 'gaussian' | 'sech2' | null;
+  spectralFwhmNm: number | null;
   traceAttachmentId: string | null;
   notes: string;
 }

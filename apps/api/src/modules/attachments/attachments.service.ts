@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { mkdirSync } from 'node:fs';
-import { writeFile } from 'node:fs/promises';
+import { readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { AttachmentDto } from '@femtoslot/shared';
 import { fileTypeFromBuffer } from 'file-type';
@@ -86,5 +86,8 @@ export function attachmentsService(ctx: AppContext) {
     return { attachment: a, filePath: path.join(dir, a.storedName) };
   }
 
-  return { upload, forDownload };
+  /** A stored text attachment's content (a trace the server analyses itself). */
+  const readText = async (a: Attachment): Promise<string> => (await readFile(path.join(dir, a.storedName))).toString('utf8');
+
+  return { upload, forDownload, readText };
 }

@@ -51,8 +51,8 @@ describe('usage log form values', () => {
     const log = {
       id: id(20), bookingId: booking.id, status: 'submitted', actualStartsAt: booking.startsAt, actualEndsAt: booking.endsAt, outsideGrace: false, notes: 'ok',
       segments: [
-        { id: id(21), configurationId: id(3), configurationKey: 'opa_signal', startsAt: booking.startsAt, endsAt: booking.endsAt, minNm: 1200, maxNm: 1400, averagePowerMw: 300, pulseFwhmFs: null, pulseShape: null, traceAttachmentId: null, notes: '' },
-        { id: id(22), configurationId: id(7), configurationKey: 'dfg', startsAt: '2026-03-03T16:00:00.000Z', endsAt: booking.endsAt, minNm: 4000, maxNm: 4500, averagePowerMw: null, pulseFwhmFs: 140, pulseShape: 'gaussian', traceAttachmentId: id(23), notes: '' },
+        { id: id(21), configurationId: id(3), configurationKey: 'opa_signal', startsAt: booking.startsAt, endsAt: booking.endsAt, minNm: 1200, maxNm: 1400, averagePowerMw: 300, pulseFwhmFs: null, pulseShape: null, spectralFwhmNm: null, traceAttachmentId: null, notes: '' },
+        { id: id(22), configurationId: id(7), configurationKey: 'dfg', startsAt: '2026-03-03T16:00:00.000Z', endsAt: booking.endsAt, minNm: 4000, maxNm: 4500, averagePowerMw: null, pulseFwhmFs: 140, pulseShape: 'gaussian', spectralFwhmNm: null, traceAttachmentId: id(23), notes: '' },
       ],
       attachments: [], submittedBy: 'Ida', submittedAt: booking.endsAt, confirmedBy: null, confirmedAt: null, billedBy: null, billedAt: null,
     } satisfies UsageLogDto;
