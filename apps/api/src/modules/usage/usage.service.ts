@@ -16,6 +16,7 @@ import { User } from '../users/user.entity';
 import { toUsageLogDto } from './usage.dto';
 import { UsageLog } from './usage-log.entity';
 import { UsageSegment } from './usage-segment.entity';
+import { logLockedError } from './log-lock';
 import { assertInsideWindow, isOutsideGrace, usageWindow, verifiedPulses } from './session-bounds';
 
 export const USAGE_REMINDER_QUEUE = 'usage-reminder';
@@ -43,10 +44,6 @@ export function usageService(ctx: AppContext) {
 
   function assertMayLog(viewer: SessionUser, b: TimelineBlock) {
     if (b.organisationId !== viewer.organisationId && viewer.role !== 'staff') throw forbidden('Only the booking’s organisation and facility staff can log this session');
-  }
-
-  function lockedError(log: UsageLog, billedByName: string) {
-    return new AppError('log_locked', `This session was billed by ${billedByName} on ${log.billedAt!.toISOString().slice(0, 10)}; a billed log cannot be changed`, 409, { billedBy: billedByName, billedAt: log.billedAt!.toISOString() });
   }
 
   async function get(viewer: SessionUser, bookingId: string) {
@@ -94,7 +91,7 @@ export function usageService(ctx: AppContext) {
       if (!['approved', 'completed'].includes(b.status)) throw new AppError('rule_violation', `A ${b.status} booking has no session to log`, 422);
       if (b.startsAt.getTime() > Date.now()) throw new AppError('rule_violation', 'This session has not started yet', 422);
       const existing = await m.getRepository(UsageLog).findOneBy({ bookingId });
-      if (existing?.status === 'billed') throw lockedError(existing, (await m.getRepository(User).findOneBy({ id: existing.billedBy! }))?.name ?? 'finance');
+      if (existing?.status === 'billed') throw await logLockedError(m, existing);
       const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
       const { start, end, pulses } = await validate(m, b, facility, input);
       const outsideGrace = isOutsideGrace(b, facility, start, end);
@@ -121,7 +118,7 @@ export function usageService(ctx: AppContext) {
     return db.transaction(async (m) => {
       const log = await m.getRepository(UsageLog).findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });
       if (!log) throw notFound('Session log');
-      if (log.status === 'billed') throw lockedError(log, (await m.getRepository(User).findOneBy({ id: log.billedBy! }))?.name ?? 'finance');
+      if (log.status === 'billed') throw await logLockedError(m, log);
       const before = await dtoFor(m, log);
       const start = input.actualStartsAt ? new Date(input.actualStartsAt) : log.actualStartsAt;
       const end = input.actualEndsAt ? new Date(input.actualEndsAt) : log.actualEndsAt;
