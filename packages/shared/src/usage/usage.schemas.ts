@@ -120,7 +120,8 @@ export interface UtilisationReportDto {
 /** Tuning coverage: each logged segment's range over time, per configuration, for a log-wavelength chart. */
 export interface TuningCoverageDto {
   segments: { configurationKey: string; configurationName: string; startsAt: string; minNm: number; maxNm: number }[];
-  pulseTrend: { startsAt: string; pulseFwhmFs: number; configurationKey: string }[];
+  /** Pump pulse FWHM with the shape it was deconvolved with; autocorrelationFwhmFs = pulse × the shape's factor (null when no shape was stated). */
+  pulseTrend: { startsAt: string; pulseFwhmFs: number; configurationKey: string; pulseShape: 'gaussian' | 'sech2' | null; autocorrelationFwhmFs: number | null }[];
   /** The facility's pump pulse-duration specification (fs), drawn as a line. */
   pumpPulseSpecFs: number | null;
 }
