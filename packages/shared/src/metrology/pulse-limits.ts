@@ -17,7 +17,7 @@ export const pulsePlausibilityInputSchema = z.object({
 });
 export type PulsePlausibilityInput = z.input<typeof pulsePlausibilityInputSchema>;
 
-const fmt = (x: number) => (x < 10 ? x.toFixed(2) : x.toFixed(1));
+const fmt = (x: number) => String(Number(x < 10 ? x.toFixed(2) : x.toFixed(1)));
 
 /**
  * Refuses a pulse duration no real pulse can have: shorter than one optical cycle at its centre wavelength
