@@ -65,3 +65,6 @@ import { RevokedSessions1765300000000 } from './migrations/1765300000000-revoked
 import { RevokedSession } from '../modules/auth/revoked-session.entity';
 (entities as unknown as (new () => object)[]).push(RevokedSession);
 (migrations as unknown as (new () => object)[]).push(RevokedSessions1765300000000);
+// Session-log bounds: the facility's window for actual times, a segment's spectral FWHM.
+import { SessionLogBounds1765400000000 } from './migrations/1765400000000-session-log-bounds';
+(migrations as unknown as (new () => object)[]).push(SessionLogBounds1765400000000);

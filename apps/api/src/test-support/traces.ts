@@ -13,3 +13,5 @@ export function gaussianTrace(pulseFwhmFs: number, { baseline = 0.05, samplesPer
 export function traceCsv(points: Array<[number, number]>, { delimiter = ',', lineEnd = '\n', delayDigits = 2 } = {}): string {
   return [`delay_fs${delimiter}signal`, ...points.map(([d, s]) => `${d.toFixed(delayDigits)}${delimiter}${s.toFixed(6)}`)].join(lineEnd);
 }
+
+export { interferometricTrace } from '@femtoslot/shared/metrology/test-traces';

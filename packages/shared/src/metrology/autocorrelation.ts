@@ -11,6 +11,11 @@ export type PulseShape = (typeof pulseShapes)[number];
 export const autocorrelationFactors: Record<PulseShape, number> = { gaussian: Math.SQRT2, sech2: 1.5427 };
 
 export const MIN_TRACE_POINTS = 5;
+/**
+ * The most points one trace may hold: a scanning autocorrelator records a few thousand; 100 000 covers a long
+ * oscilloscope record (common practice, not a published limit) and keeps the work per request bounded.
+ */
+export const MAX_TRACE_POINTS = 100_000;
 // Share of the trace at each end that is taken as baseline.
 const WING_FRACTION = 0.1;
 // A peak less than this many noise σ above the baseline is not told apart from noise.
@@ -18,7 +23,7 @@ const PEAK_NOISE_SIGMAS = 5;
 
 export const tracePointSchema = z.tuple([z.number(), z.number()]);
 export const autocorrelationInputSchema = z.object({
-  points: z.array(tracePointSchema),
+  points: z.array(tracePointSchema).max(MAX_TRACE_POINTS),
   shape: z.enum(pulseShapes),
 });
 export type AutocorrelationInput = z.input<typeof autocorrelationInputSchema>;
@@ -84,14 +89,32 @@ function peakHeight(delays: number[], values: number[], peakIndex: number): numb
  * top samples; FWHM: linear interpolation at half maximum.
  */
 export function analyseAutocorrelation(points: Array<[number, number]>, shape: PulseShape): AutocorrelationResult {
+  assertPointCount(Array.isArray(points) ? points.length : 0);
   const input = parseEngineInput(autocorrelationInputSchema, { points, shape });
+  return analysePoints(input.points, input.shape);
+}
+
+/** Refuses a trace longer than MAX_TRACE_POINTS before any work is spent on it. */
+export function assertPointCount(count: number): void {
+  if (count > MAX_TRACE_POINTS) {
+    throw new EngineError('too_many_points', `A trace may hold at most ${MAX_TRACE_POINTS} points; this one has ${count}`, { count, maximum: MAX_TRACE_POINTS });
+  }
+}
+
+/** The analysis proper, on points already known to be finite number pairs (no second validation pass). */
+export function analysePoints(points: Array<[number, number]>, shape: PulseShape): AutocorrelationResult {
+  assertPointCount(points.length);
+  const input = { points, shape };
   if (input.points.length < MIN_TRACE_POINTS) {
     throw new EngineError('too_few_points', `A trace needs at least ${MIN_TRACE_POINTS} points; it has ${input.points.length}`, {
       count: input.points.length,
       minimum: MIN_TRACE_POINTS,
     });
   }
-  const sorted = [...input.points].sort((a, b) => a[0] - b[0]);
+  // Scans are nearly always recorded in delay order: check in one pass before paying for a sort.
+  let inOrder = true;
+  for (let i = 1; i < input.points.length && inOrder; i += 1) inOrder = input.points[i - 1]![0] <= input.points[i]![0];
+  const sorted = inOrder ? input.points : [...input.points].sort((a, b) => a[0] - b[0]);
   const delays = sorted.map((p) => p[0]);
   const count = sorted.length;
   const wing = Math.max(1, Math.floor(count * WING_FRACTION));
@@ -108,7 +131,9 @@ export function analyseAutocorrelation(points: Array<[number, number]>, shape: P
   let peakIndex = 0;
   for (let i = 1; i < count; i += 1) if (values[i] > values[peakIndex]) peakIndex = i;
   const peak = peakHeight(delays, values, peakIndex);
-  const scale = Math.max(...sorted.map((p) => Math.abs(p[1])), Number.MIN_VALUE);
+  // A loop, not Math.max(...array): spreading 10⁵ arguments overflows the call stack.
+  let scale = Number.MIN_VALUE;
+  for (const p of sorted) scale = Math.max(scale, Math.abs(p[1]));
   if (!(peak > PEAK_NOISE_SIGMAS * noise) || peak <= 1e-12 * scale) {
     throw new EngineError('no_peak', 'The trace has no peak above its baseline noise', { baseline, noise, peak });
   }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../planner/seeded-random';
-import { analyseAutocorrelation, autocorrelationFactors, type PulseShape } from './autocorrelation';
+import { analyseAutocorrelation, autocorrelationFactors, MAX_TRACE_POINTS, type PulseShape } from './autocorrelation';
 import { timeBandwidth, transformLimitedDurationFs, transformLimitedProducts } from './time-bandwidth';
 
 const code = (c: string) => expect.objectContaining({ code: c });
@@ -69,6 +69,11 @@ describe('autocorrelation analysis', () => {
   it('when a trace is flat, then no_peak', () => {
     const flat: Array<[number, number]> = Array.from({ length: 40 }, (_, i) => [i, 2]);
     expect(() => analyseAutocorrelation(flat, 'gaussian')).toThrow(code('no_peak'));
+  });
+
+  it('when 150,000 points are given, then too_many_points names the limit (no stack overflow)', () => {
+    const many: Array<[number, number]> = Array.from({ length: 150_000 }, (_, i) => [i, Math.exp(-(((i - 75_000) / 3000) ** 2))]);
+    expect(() => analyseAutocorrelation(many, 'gaussian')).toThrow(expect.objectContaining({ code: 'too_many_points', details: expect.objectContaining({ maximum: MAX_TRACE_POINTS, count: 150_000 }) }));
   });
 
   it('when the scan stops before the trace falls to half maximum, then peak_at_edge', () => {

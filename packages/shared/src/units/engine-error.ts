@@ -11,6 +11,10 @@ export const engineErrorCodes = [
   'peak_at_edge',
   'wrong_columns',
   'malformed_csv',
+  'too_many_points',
+  'line_too_long',
+  'below_optical_cycle',
+  'below_transform_limit',
 ] as const;
 export type EngineErrorCode = (typeof engineErrorCodes)[number];
 

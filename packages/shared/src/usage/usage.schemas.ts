@@ -17,6 +17,8 @@ export const usageSegmentInputSchema = z
     /** Typed by the user, or computed from an uploaded trace (then `traceAttachmentId` and `pulseShape` are set). */
     pulseFwhmFs: z.number().positive().max(1_000_000).nullable().optional(),
     pulseShape: z.enum(pulseShapes).nullable().optional(),
+    /** Spectral FWHM (nm) measured with the pulse: the server then also refuses a pulse below the transform limit. */
+    spectralFwhmNm: z.number().positive().max(100_000).nullable().optional(),
     traceAttachmentId: z.uuid().nullable().optional(),
     notes: z.string().trim().max(2000).optional(),
   })
@@ -63,6 +65,7 @@ export interface UsageSegmentDto {
   averagePowerMw: number | null;
   pulseFwhmFs: number | null;
   pulseShape: 'gaussian' | 'sech2' | null;
+  spectralFwhmNm: number | null;
   traceAttachmentId: string | null;
   notes: string;
 }
@@ -118,7 +121,8 @@ export interface UtilisationReportDto {
 /** Tuning coverage: each logged segment's range over time, per configuration, for a log-wavelength chart. */
 export interface TuningCoverageDto {
   segments: { configurationKey: string; configurationName: string; startsAt: string; minNm: number; maxNm: number }[];
-  pulseTrend: { startsAt: string; pulseFwhmFs: number; configurationKey: string }[];
+  /** Pump pulse FWHM with the shape it was deconvolved with; autocorrelationFwhmFs = pulse × the shape's factor (null when no shape was stated). */
+  pulseTrend: { startsAt: string; pulseFwhmFs: number; configurationKey: string; pulseShape: 'gaussian' | 'sech2' | null; autocorrelationFwhmFs: number | null }[];
   /** The facility's pump pulse-duration specification (fs), drawn as a line. */
   pumpPulseSpecFs: number | null;
 }

@@ -4,9 +4,11 @@ import { currentUser, param, type RouteDef } from '../../lib/auth/routes';
 import { AppError } from '../../lib/errors/app-error';
 import { UsageLog } from '../usage/usage-log.entity';
 import { attachmentsService, MAX_UPLOAD_BYTES, toAttachmentDto } from './attachments.service';
+import { attachmentDisposition } from './content-disposition';
 
 // preservePath: see the name as sent, so that one with path parts is refused rather than silently cut down.
-const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 } });
+// defParamCharset: browsers send the file name as raw UTF-8 (WHATWG HTML form encoding), not Latin-1.
+const upload = multer({ storage: multer.memoryStorage(), preservePath: true, defParamCharset: 'utf8', limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 } });
 
 export function attachmentsRoutes(ctx: AppContext): RouteDef[] {
   const s = attachmentsService(ctx);
@@ -21,8 +23,7 @@ export function attachmentsRoutes(ctx: AppContext): RouteDef[] {
       handler: async (req, res) => {
         const log = await ctx.db.getRepository(UsageLog).findOneBy({ id: param(req, 'id') });
         if (!log) throw new AppError('not_found', 'Session log was not found', 404);
-        const a = await s.upload(currentUser(req), log.bookingId, req.file);
-        await ctx.db.query(`UPDATE usage_logs SET attachment_ids = attachment_ids || to_jsonb($2::text) WHERE id = $1 AND status <> 'billed'`, [log.id, a.id]);
+        const a = await s.upload(currentUser(req), log.bookingId, req.file, { usageLogId: log.id });
         res.status(201).json({ attachment: toAttachmentDto(a) });
       },
     },
@@ -33,7 +34,7 @@ export function attachmentsRoutes(ctx: AppContext): RouteDef[] {
         res.set('Content-Type', attachment.contentType);
         res.set('X-Content-Type-Options', 'nosniff');
         res.set('Content-Security-Policy', "default-src 'none'; sandbox");
-        res.attachment(attachment.originalName);
+        res.set('Content-Disposition', attachmentDisposition(attachment.originalName));
         res.sendFile(filePath);
       },
     },

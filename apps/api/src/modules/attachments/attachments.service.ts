@@ -1,14 +1,17 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { mkdirSync } from 'node:fs';
-import { writeFile } from 'node:fs/promises';
+import { readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { AttachmentDto } from '@femtoslot/shared';
 import { fileTypeFromBuffer } from 'file-type';
+import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { AppError, forbidden, notFound } from '../../lib/errors/app-error';
 import { facilityWideRoles } from '../bookings/booking.dto';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
+import { UsageLog } from '../usage/usage-log.entity';
+import { logLockedError } from '../usage/log-lock';
 import { Attachment, type AttachmentType } from './attachment.entity';
 
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
@@ -59,23 +62,36 @@ export function attachmentsService(ctx: AppContext) {
   const dir = path.join(ctx.env.DATA_DIR, 'uploads');
   mkdirSync(dir, { recursive: true });
 
-  async function bookingFor(viewer: SessionUser, bookingId: string): Promise<TimelineBlock> {
-    const b = await ctx.db.getRepository(TimelineBlock).findOneBy({ id: bookingId, kind: 'booking' });
+  async function bookingFor(m: EntityManager, viewer: SessionUser, bookingId: string): Promise<TimelineBlock> {
+    const b = await m.getRepository(TimelineBlock).findOneBy({ id: bookingId, kind: 'booking' });
     if (!b) throw notFound('Booking');
     if (b.organisationId !== viewer.organisationId && viewer.role !== 'staff') throw forbidden('Only the booking’s organisation and facility staff can attach files');
     return b;
   }
 
-  async function upload(viewer: SessionUser, bookingId: string, file: { buffer: Buffer; originalname: string } | undefined): Promise<Attachment> {
+  /**
+   * Stores an upload for a booking (and lists it on the session log when `usageLogId` is given). The booking's log is
+   * locked first: once billed, it takes no more files (409 log_locked), and the close cannot bill it mid-upload.
+   */
+  async function upload(viewer: SessionUser, bookingId: string, file: { buffer: Buffer; originalname: string } | undefined, opts: { usageLogId?: string } = {}): Promise<Attachment> {
     if (!file) throw new AppError('validation_failed', 'Attach a file in the field "file"', 400);
-    const booking = await bookingFor(viewer, bookingId);
-    const name = cleanName(file.originalname);
-    const contentType = await detectType(file.buffer, name);
-    const storedName = randomBytes(16).toString('hex');
-    await writeFile(path.join(dir, storedName), file.buffer, { flag: 'wx', mode: 0o600 });
-    return ctx.db.getRepository(Attachment).save({
-      bookingId: booking.id, organisationId: booking.organisationId!, originalName: name, storedName, contentType,
-      sizeBytes: file.buffer.length, sha256: createHash('sha256').update(file.buffer).digest('hex'), uploadedBy: viewer.id,
+    return ctx.db.transaction(async (m) => {
+      const booking = await bookingFor(m, viewer, bookingId);
+      const name = cleanName(file.originalname);
+      const log = await m.getRepository(UsageLog).findOne({ where: { bookingId: booking.id }, lock: { mode: 'pessimistic_write' } });
+      if (log?.status === 'billed') throw await logLockedError(m, log);
+      const contentType = await detectType(file.buffer, name);
+      const storedName = randomBytes(16).toString('hex');
+      const saved = await m.getRepository(Attachment).save({
+        bookingId: booking.id, organisationId: booking.organisationId!, originalName: name, storedName, contentType,
+        sizeBytes: file.buffer.length, sha256: createHash('sha256').update(file.buffer).digest('hex'), uploadedBy: viewer.id,
+      });
+      if (opts.usageLogId && log?.id === opts.usageLogId) {
+        await m.query(`UPDATE usage_logs SET attachment_ids = attachment_ids || to_jsonb($2::text) WHERE id = $1`, [log.id, saved.id]);
+      }
+      // Written last, inside the transaction: a failed write leaves no row behind.
+      await writeFile(path.join(dir, storedName), file.buffer, { flag: 'wx', mode: 0o600 });
+      return saved;
     });
   }
 
@@ -86,5 +102,8 @@ export function attachmentsService(ctx: AppContext) {
     return { attachment: a, filePath: path.join(dir, a.storedName) };
   }
 
-  return { upload, forDownload };
+  /** A stored text attachment's content (a trace the server analyses itself). */
+  const readText = async (a: Attachment): Promise<string> => (await readFile(path.join(dir, a.storedName))).toString('utf8');
+
+  return { upload, forDownload, readText };
 }

@@ -1,16 +1,24 @@
-import { analyseAutocorrelation, analyseAutocorrelationCsv, checkTargetFeasibility, describeWavelength, opaMixing, opaRangesOf, bookingTargetSchema } from '@femtoslot/shared';
+import { analysePoints, assertPointCount, checkTargetFeasibility, describeWavelength, opaMixing, opaRangesOf, bookingTargetSchema } from '@femtoslot/shared';
 import multer from 'multer';
 import { z } from 'zod';
 import type { AppContext } from '../../lib/context';
 import type { RouteDef } from '../../lib/auth/routes';
 import { AppError, notFound } from '../../lib/errors/app-error';
+import { Configuration } from '../instruments/configuration.entity';
+import { Instrument } from '../instruments/instrument.entity';
+import { analyseTraceText, checkPulse, yieldToEventLoop } from './trace-analysis';
 
 const mixingQuerySchema = z.object({ pumpNm: z.coerce.number().positive().finite(), signalNm: z.coerce.number().positive().finite() });
 const feasibilityInputSchema = z.intersection(z.object({ configurationId: z.uuid() }), bookingTargetSchema);
 const shapeSchema = z.enum(['gaussian', 'sech2']);
-const autocorrelationJsonSchema = z.object({
+// Centre wavelength and spectral FWHM (nm), both optional: they set the optical-cycle and transform-limit checks.
+const pulseContextSchema = z.object({
+  centreNm: z.coerce.number().positive().finite().max(100_000).optional(),
+  spectralFwhmNm: z.coerce.number().positive().finite().max(100_000).optional(),
+});
+const autocorrelationJsonSchema = pulseContextSchema.extend({
   shape: shapeSchema,
-  points: z.array(z.tuple([z.number().finite(), z.number().finite()])).max(200_000),
+  points: z.array(z.tuple([z.number().finite(), z.number().finite()])),
 });
 // A trace is a small text file; 2 MB is generous and keeps the upload in memory.
 const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 2 * 1024 * 1024, files: 1, fields: 5 } });
@@ -49,16 +57,23 @@ export function opticsRoutes(ctx: AppContext): RouteDef[] {
     },
     {
       method: 'post', path: '/optics/autocorrelation', access: 'signed_in', before: [upload.single('trace')],
-      handler: (req, res) => {
+      handler: async (req, res) => {
         let result;
+        let pulse;
         if (req.file) {
           const shape = shapeSchema.parse(req.body?.shape);
-          result = analyseAutocorrelationCsv(req.file.buffer.toString('utf8'), shape);
+          pulse = pulseContextSchema.parse(req.body ?? {});
+          result = await analyseTraceText(req.file.buffer.toString('utf8'), shape);
         } else {
+          // Counted before validation: a huge array costs time in every later pass.
+          assertPointCount(Array.isArray(req.body?.points) ? req.body.points.length : 0);
           const body = autocorrelationJsonSchema.parse(req.body);
-          result = analyseAutocorrelation(body.points as Array<[number, number]>, body.shape);
+          pulse = body;
+          await yieldToEventLoop();
+          result = analysePoints(body.points as Array<[number, number]>, body.shape);
         }
-        res.json({ acFwhmFs: result.autocorrelationFwhmFs, pulseFwhmFs: result.pulseFwhmFs, shape: result.shape, baseline: result.baseline, peakDelayFs: result.peakDelayFs });
+        const limits = await checkPulse(ctx, result.pulseFwhmFs, result.shape, pulse);
+        res.json({ acFwhmFs: result.autocorrelationFwhmFs, pulseFwhmFs: result.pulseFwhmFs, shape: result.shape, baseline: result.baseline, peakDelayFs: result.peakDelayFs, deconvolutionFactor: result.deconvolutionFactor, ...limits });
       },
     },
   ];

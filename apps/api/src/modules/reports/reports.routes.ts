@@ -35,5 +35,13 @@ export function reportsRoutes(ctx: AppContext): RouteDef[] {
         sendCsv(res, 'tuning-coverage.csv', ['starts_at', 'configuration', 'min_nm', 'max_nm'], r.segments.map((x) => [x.startsAt, x.configurationName, x.minNm, x.maxNm]));
       },
     },
+    {
+      method: 'get', path: '/reports/pulse-trend.csv', access: readers, scope: 'organisation',
+      handler: async (req, res) => {
+        const r = await s.tuningCoverage(currentUser(req), coverageQuerySchema.parse(req.query));
+        sendCsv(res, 'pulse-trend.csv', ['starts_at', 'configuration', 'pulse_shape', 'pulse_fwhm_fs', 'autocorrelation_fwhm_fs'],
+          r.pulseTrend.map((x) => [x.startsAt, x.configurationKey, x.pulseShape ?? '', x.pulseFwhmFs, x.autocorrelationFwhmFs ?? '']));
+      },
+    },
   ];
 }

@@ -1,4 +1,4 @@
-import { minutesNeededAfterBlock, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
+import { autocorrelationFactors, minutesNeededAfterBlock, type PulseShape, type TuningCoverageDto, type UtilisationReportDto, type UtilisationRowDto } from '@femtoslot/shared';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { FacilitySettings } from '../facility/facility-settings.entity';
@@ -111,15 +111,20 @@ export function reportsService(ctx: AppContext) {
 
   async function tuningCoverage(viewer: SessionUser, q: Omit<ReportQuery, 'groupBy'>): Promise<TuningCoverageDto> {
     const { org, spec } = await scope(viewer);
-    const rows: { key: string; name: string; kind: string; starts_at: Date; min_nm: string; max_nm: string; pulse: string | null }[] = await ctx.db.query(`
-      SELECT c.key, c.name, c.output_kind AS kind, s.starts_at, s.min_nm, s.max_nm, s.pulse_fwhm_fs AS pulse
+    const rows: { key: string; name: string; kind: string; starts_at: Date; min_nm: string; max_nm: string; pulse: string | null; shape: PulseShape | null }[] = await ctx.db.query(`
+      SELECT c.key, c.name, c.output_kind AS kind, s.starts_at, s.min_nm, s.max_nm, s.pulse_fwhm_fs AS pulse, s.pulse_shape AS shape
       FROM usage_segments s JOIN usage_logs u ON u.id = s.usage_log_id JOIN timeline_blocks b ON b.id = u.booking_id JOIN configurations c ON c.id = s.configuration_id
       WHERE s.starts_at >= $1 AND s.starts_at < $2 AND ($3::uuid IS NULL OR b.instrument_id = $3) AND ($4::uuid IS NULL OR b.organisation_id = $4)
       ORDER BY s.starts_at`, [q.from, q.to, q.instrumentId ?? null, org]);
     return {
       segments: rows.map((r) => ({ configurationKey: r.key, configurationName: r.name, startsAt: new Date(r.starts_at).toISOString(), minNm: Number(r.min_nm), maxNm: Number(r.max_nm) })),
       // The pump is the fundamental output: its measured pulse durations over time.
-      pulseTrend: rows.filter((r) => r.kind === 'fundamental' && r.pulse !== null).map((r) => ({ startsAt: new Date(r.starts_at).toISOString(), pulseFwhmFs: Number(r.pulse), configurationKey: r.key })),
+      // Each point keeps its assumed shape, and the shape-free quantity actually measured (the AC FWHM), so that
+      // Gaussian and sech² readings are never compared as if alike.
+      pulseTrend: rows.filter((r) => r.kind === 'fundamental' && r.pulse !== null).map((r) => ({
+        startsAt: new Date(r.starts_at).toISOString(), pulseFwhmFs: Number(r.pulse), configurationKey: r.key, pulseShape: r.shape,
+        autocorrelationFwhmFs: r.shape ? Number(r.pulse) * autocorrelationFactors[r.shape] : null,
+      })),
       pumpPulseSpecFs: spec,
     };
   }

@@ -14,6 +14,7 @@ export class UsageSegment {
   @Column({ name: 'average_power_mw', type: 'numeric', nullable: true, transformer: numericTransformer }) averagePowerMw: number | null;
   @Column({ name: 'pulse_fwhm_fs', type: 'numeric', nullable: true, transformer: numericTransformer }) pulseFwhmFs: number | null;
   @Column({ name: 'pulse_shape', type: 'text', nullable: true }) pulseShape: 'gaussian' | 'sech2' | null;
+  @Column({ name: 'spectral_fwhm_nm', type: 'numeric', nullable: true, transformer: numericTransformer }) spectralFwhmNm: number | null;
   @Column({ name: 'trace_attachment_id', type: 'uuid', nullable: true }) traceAttachmentId: string | null;
   @Column({ type: 'text', default: '' }) notes: string;
 }

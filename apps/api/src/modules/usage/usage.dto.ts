@@ -15,7 +15,7 @@ export function toUsageLogDto(log: UsageLog, segments: UsageSegment[], attachmen
     notes: log.notes,
     segments: [...segments].sort((a, b) => a.startsAt.getTime() - b.startsAt.getTime()).map((s) => ({
       id: s.id, configurationId: s.configurationId, configurationKey: keyOf(s.configurationId), startsAt: s.startsAt.toISOString(), endsAt: s.endsAt.toISOString(),
-      minNm: s.minNm, maxNm: s.maxNm, averagePowerMw: s.averagePowerMw, pulseFwhmFs: s.pulseFwhmFs, pulseShape: s.pulseShape, traceAttachmentId: s.traceAttachmentId, notes: s.notes,
+      minNm: s.minNm, maxNm: s.maxNm, averagePowerMw: s.averagePowerMw, pulseFwhmFs: s.pulseFwhmFs, pulseShape: s.pulseShape, spectralFwhmNm: s.spectralFwhmNm, traceAttachmentId: s.traceAttachmentId, notes: s.notes,
     })),
     attachments: attachments.map(toAttachmentDto),
     submittedBy: nameOf(log.submittedBy),

@@ -16,8 +16,9 @@ import { User } from '../users/user.entity';
 import { toUsageLogDto } from './usage.dto';
 import { UsageLog } from './usage-log.entity';
 import { UsageSegment } from './usage-segment.entity';
+import { logLockedError } from './log-lock';
+import { assertInsideWindow, isOutsideGrace, usageWindow, verifiedPulses } from './session-bounds';
 
-const MIN = 60_000;
 export const USAGE_REMINDER_QUEUE = 'usage-reminder';
 
 export function usageService(ctx: AppContext) {
@@ -45,10 +46,6 @@ export function usageService(ctx: AppContext) {
     if (b.organisationId !== viewer.organisationId && viewer.role !== 'staff') throw forbidden('Only the booking’s organisation and facility staff can log this session');
   }
 
-  function lockedError(log: UsageLog, billedByName: string) {
-    return new AppError('log_locked', `This session was billed by ${billedByName} on ${log.billedAt!.toISOString().slice(0, 10)}; a billed log cannot be changed`, 409, { billedBy: billedByName, billedAt: log.billedAt!.toISOString() });
-  }
-
   async function get(viewer: SessionUser, bookingId: string) {
     const b = await db.getRepository(TimelineBlock).findOneBy({ id: bookingId, kind: 'booking' });
     if (!b) throw notFound('Booking');
@@ -56,13 +53,14 @@ export function usageService(ctx: AppContext) {
     const log = await db.getRepository(UsageLog).findOneBy({ bookingId });
     const facility = await db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
     const look = await loadLookups(db.manager, [b]);
-    return { booking: toBookingDto(b, viewer, look), log: log ? await dtoFor(db.manager, log) : null, graceMinutes: facility.policies.usageGraceMinutes ?? 30 };
+    return { booking: toBookingDto(b, viewer, look), log: log ? await dtoFor(db.manager, log) : null, graceMinutes: facility.policies.usageGraceMinutes ?? 30, window: usageWindow(b, facility) };
   }
 
   /** Checks every rule of a session log; the segment overlap is also a PostgreSQL exclusion constraint. */
-  async function validate(m: EntityManager, b: TimelineBlock, input: UsageLogInput) {
+  async function validate(m: EntityManager, b: TimelineBlock, facility: FacilitySettings, input: UsageLogInput) {
     const start = new Date(input.actualStartsAt).getTime();
     const end = new Date(input.actualEndsAt).getTime();
+    assertInsideWindow(b, facility, start, end);
     const instrument = await m.getRepository(Instrument).findOneByOrFail({ id: b.instrumentId });
     const configs = new Map((await m.getRepository(Configuration).findBy({ instrumentId: b.instrumentId })).map((c) => [c.id, c]));
     const sorted = [...input.segments].sort((x, y) => Date.parse(x.startsAt) - Date.parse(y.startsAt));
@@ -82,7 +80,7 @@ export function usageService(ctx: AppContext) {
       const found = await m.getRepository(Attachment).countBy({ id: In([...new Set(referenced)]), bookingId: b.id });
       if (found !== new Set(referenced).size) throw new AppError('rule_violation', 'Attachments must be uploaded to this booking first', 422);
     }
-    return { start, end };
+    return { start, end, pulses: await verifiedPulses(ctx, m, b.id, input.segments) };
   }
 
   async function save(viewer: SessionUser, bookingId: string, input: UsageLogInput, requestId?: string) {
@@ -93,21 +91,20 @@ export function usageService(ctx: AppContext) {
       if (!['approved', 'completed'].includes(b.status)) throw new AppError('rule_violation', `A ${b.status} booking has no session to log`, 422);
       if (b.startsAt.getTime() > Date.now()) throw new AppError('rule_violation', 'This session has not started yet', 422);
       const existing = await m.getRepository(UsageLog).findOneBy({ bookingId });
-      if (existing?.status === 'billed') throw lockedError(existing, (await m.getRepository(User).findOneBy({ id: existing.billedBy! }))?.name ?? 'finance');
-      const { start, end } = await validate(m, b, input);
+      if (existing?.status === 'billed') throw await logLockedError(m, existing);
       const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
-      const grace = (facility.policies.usageGraceMinutes ?? 30) * MIN;
-      const outsideGrace = Math.abs(start - b.startsAt.getTime()) > grace || Math.abs(end - b.endsAt.getTime()) > grace;
+      const { start, end, pulses } = await validate(m, b, facility, input);
+      const outsideGrace = isOutsideGrace(b, facility, start, end);
       const before = existing ? await dtoFor(m, existing) : null;
       const log = await m.getRepository(UsageLog).save({
         ...(existing ?? {}), bookingId, status: 'submitted', actualStartsAt: new Date(start), actualEndsAt: new Date(end), outsideGrace, notes: input.notes ?? '',
         attachmentIds: input.attachmentIds ?? existing?.attachmentIds ?? [], submittedBy: viewer.id, submittedAt: new Date(), confirmedBy: null, confirmedAt: null,
       } as UsageLog);
       await m.getRepository(UsageSegment).delete({ usageLogId: log.id });
-      for (const s of input.segments) {
+      for (const [i, s] of input.segments.entries()) {
         await m.getRepository(UsageSegment).insert({
           usageLogId: log.id, configurationId: s.configurationId, startsAt: new Date(s.startsAt), endsAt: new Date(s.endsAt), minNm: s.minNm, maxNm: s.maxNm,
-          averagePowerMw: s.averagePowerMw ?? null, pulseFwhmFs: s.pulseFwhmFs ?? null, pulseShape: s.pulseShape ?? null, traceAttachmentId: s.traceAttachmentId ?? null, notes: s.notes ?? '',
+          averagePowerMw: s.averagePowerMw ?? null, pulseFwhmFs: pulses[i] ?? null, pulseShape: s.pulseShape ?? null, spectralFwhmNm: s.spectralFwhmNm ?? null, traceAttachmentId: s.traceAttachmentId ?? null, notes: s.notes ?? '',
         });
       }
       if (b.status === 'approved') await m.getRepository(TimelineBlock).update({ id: b.id }, { status: 'completed' });
@@ -121,14 +118,17 @@ export function usageService(ctx: AppContext) {
     return db.transaction(async (m) => {
       const log = await m.getRepository(UsageLog).findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });
       if (!log) throw notFound('Session log');
-      if (log.status === 'billed') throw lockedError(log, (await m.getRepository(User).findOneBy({ id: log.billedBy! }))?.name ?? 'finance');
+      if (log.status === 'billed') throw await logLockedError(m, log);
       const before = await dtoFor(m, log);
       const start = input.actualStartsAt ? new Date(input.actualStartsAt) : log.actualStartsAt;
       const end = input.actualEndsAt ? new Date(input.actualEndsAt) : log.actualEndsAt;
       if (end <= start) throw new AppError('rule_violation', 'The session must end after it starts', 422);
+      const b = await m.getRepository(TimelineBlock).findOneByOrFail({ id: log.bookingId });
+      const facility = await m.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
+      assertInsideWindow(b, facility, start.getTime(), end.getTime());
       const outside = await m.getRepository(UsageSegment).count({ where: [{ usageLogId: id, startsAt: LessThanOrEqual(new Date(start.getTime() - 1)) }, { usageLogId: id, endsAt: MoreThan(end) }] });
       if (outside > 0) throw new AppError('segment_outside_session', 'Adjusted times would leave logged segments outside the session; adjust the segments first', 422);
-      Object.assign(log, { actualStartsAt: start, actualEndsAt: end, status: 'confirmed', confirmedBy: viewer.id, confirmedAt: new Date(), notes: input.note ? `${log.notes}${log.notes ? '\n' : ''}Staff: ${input.note}` : log.notes });
+      Object.assign(log, { actualStartsAt: start, actualEndsAt: end, outsideGrace: isOutsideGrace(b, facility, start.getTime(), end.getTime()), status: 'confirmed', confirmedBy: viewer.id, confirmedAt: new Date(), notes: input.note ? `${log.notes}${log.notes ? '\n' : ''}Staff: ${input.note}` : log.notes });
       await m.getRepository(UsageLog).save(log);
       const after = await dtoFor(m, log);
       await recordAudit(m, { actorUserId: viewer.id, action: 'usage.confirmed', entityType: 'usage_log', entityId: id, before: before as unknown as Record<string, unknown>, after: after as unknown as Record<string, unknown>, requestId });

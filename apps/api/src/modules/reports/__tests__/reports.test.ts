@@ -86,4 +86,28 @@ describe('reports', () => {
     expect(r.body.pulseTrend).toEqual([expect.objectContaining({ pulseFwhmFs: 42 })]);
     expect((await me.agent.get('/api/reports/tuning-coverage').query({ from: '2026-11-01T00:00:00Z', to: '2026-11-30T00:00:00Z' })).status).toBe(403);
   });
+
+  it('when Gaussian and sech² pulses are logged on the pump, then the trend names each assumed shape and its autocorrelation width, so like is compared with like', async () => {
+    const { instrument, configs } = await makeInstrument(t);
+    const me = await makeBooker(t);
+    const base = new Date('2026-10-05T14:00:00Z');
+    const logged = [{ day: 0, shape: 'gaussian', pulse: 50 }, { day: 1, shape: 'sech2', pulse: 50 }, { day: 2, shape: null, pulse: 60 }] as const;
+    for (const l of logged) {
+      const start = plusHours(base, l.day * 24);
+      const b = await pastSession(t, { instrumentId: instrument.id, configuration: configs.fundamental, accountId: me.account.id, userId: me.user.id, organisationId: me.org.id, startsAt: start, hours: 2, nm: 800 });
+      const r = await me.agent.post(`/api/bookings/${b.id}/usage`).send({
+        actualStartsAt: start.toISOString(), actualEndsAt: plusHours(start, 2).toISOString(),
+        segments: [{ configurationId: configs.fundamental.id, startsAt: start.toISOString(), endsAt: plusHours(start, 2).toISOString(), minNm: 800, maxNm: 800, pulseFwhmFs: l.pulse, pulseShape: l.shape }],
+      });
+      expect(r.status).toBe(200);
+    }
+    const { users } = await makePeople(t, ['staff']);
+    const staff = await t.signIn(users.staff!.email);
+    const r = await staff.get('/api/reports/tuning-coverage').query({ from: '2026-10-01T00:00:00Z', to: '2026-10-31T00:00:00Z', instrumentId: instrument.id });
+    expect(r.body.pulseTrend.map((p: { pulseShape: string | null }) => p.pulseShape)).toEqual(['gaussian', 'sech2', null]);
+    // Source: intensity AC FWHM = pulse FWHM × 1.414 (Gaussian) or × 1.543 (sech²), Diels & Rudolph, Ultrashort Laser Pulse Phenomena
+    expect(r.body.pulseTrend[0].autocorrelationFwhmFs).toBeCloseTo(50 * 1.41421, 3);
+    expect(r.body.pulseTrend[1].autocorrelationFwhmFs).toBeCloseTo(50 * 1.5427, 3);
+    expect(r.body.pulseTrend[2].autocorrelationFwhmFs).toBeNull();
+  });
 });

@@ -23,7 +23,7 @@ const utilisation = {
 };
 const coverage = {
   segments: [{ configurationKey: 'opa_signal', configurationName: 'OPA signal', startsAt: '2026-03-03T14:00:00.000Z', minNm: 1290, maxNm: 1480 }],
-  pulseTrend: [{ startsAt: '2026-03-03T14:00:00.000Z', pulseFwhmFs: 96.4, configurationKey: 'fundamental' }],
+  pulseTrend: [{ startsAt: '2026-03-03T14:00:00.000Z', pulseFwhmFs: 96.4, configurationKey: 'fundamental', pulseShape: 'gaussian', autocorrelationFwhmFs: 96.4 * 1.41421 }],
   pumpPulseSpecFs: 110,
 };
 
@@ -58,12 +58,14 @@ describe('reports page', () => {
     expect(cells(el.querySelector('[data-testid="by-configuration-table"]'))).toEqual([['OPA signal', '47.25']]);
     expect(cells(el.querySelector('[data-testid="by-organisation-table"]'))).toEqual([['Kestrel Group', '47.25']]);
     expect(cells(el.querySelector('[data-testid="tuning-table"]'))[0]?.slice(1)).toEqual(['OPA signal', '1,290', '1,480']);
-    expect(cells(el.querySelector('[data-testid="pulse-table"]'))[0]?.slice(2)).toEqual(['96.4', 'within']);
+    // AC FWHM = 96.4 fs × 1.414 = 136.3 fs (Gaussian, Diels & Rudolph)
+    expect(cells(el.querySelector('[data-testid="pulse-table"]'))[0]?.slice(2)).toEqual(['Gaussian', '96.4', '136.3', 'within']);
     for (const chart of ['utilisation-chart', 'tuning-chart', 'pulse-chart']) expect(el.querySelector(`[data-testid="${chart}"]`)).not.toBeNull();
     const links = [...el.querySelectorAll<HTMLAnchorElement>('[data-testid="export-csv"]')].map((a) => a.getAttribute('href'));
     expect(links).toHaveLength(5);
     expect(links.filter((h) => h === `/api/reports/utilisation.csv?${query}`)).toHaveLength(3);
-    expect(links.filter((h) => h === `/api/reports/tuning-coverage.csv?${query.replace('&groupBy=week', '')}`)).toHaveLength(2);
+    expect(links.filter((h) => h === `/api/reports/tuning-coverage.csv?${query.replace('&groupBy=week', '')}`)).toHaveLength(1);
+    expect(links.filter((h) => h === `/api/reports/pulse-trend.csv?${query.replace('&groupBy=week', '')}`)).toHaveLength(1);
   });
 
   test('when the instrument and grouping change, then the reports and their CSV links ask again with them', async () => {

@@ -13,7 +13,7 @@ import { HoursByReport } from '../../../features/reports/components/hours-by-rep
 import { PulseTrendReport } from '../../../features/reports/components/pulse-trend-report';
 import { TuningCoverageReport } from '../../../features/reports/components/tuning-coverage-report';
 import { UtilisationReport } from '../../../features/reports/components/utilisation-report';
-import { type ReportFilters, defaultReportFilters, reportQuery, tuningCoverageCsvHref, utilisationCsvHref } from '../../../features/reports/lib/report-query';
+import { type ReportFilters, defaultReportFilters, pulseTrendCsvHref, reportQuery, tuningCoverageCsvHref, utilisationCsvHref } from '../../../features/reports/lib/report-query';
 import { useSignedInUser } from '../../../lib/auth';
 import { configurationColour } from '../../../lib/configuration-colour';
 import { ReportFiltersBar } from './report-filters';
@@ -112,7 +112,7 @@ function ReportsBody({ timeZone, ownGroupOnly }: { timeZone: string; ownGroupOnl
                     axis={axis}
                     colourFor={colourFor}
                     nameFor={nameFor}
-                    csvHref={tuningCoverageCsvHref(query)}
+                    csvHref={pulseTrendCsvHref(query)}
                   />
                 </div>
                 <aside>

@@ -39,7 +39,7 @@ export function SessionLogPage() {
     );
   }
 
-  const { booking, log, graceMinutes } = usage.data;
+  const { booking, log, graceMinutes, window: usageWindow } = usage.data;
   const timeZone = facility.data.timeZone;
   const instrumentConfigurations = (configurations.data ?? []).filter((c) => c.instrumentId === booking.instrumentId);
   const booked = instrumentConfigurations.find((c) => c.id === booking.configurationId);
@@ -68,6 +68,7 @@ export function SessionLogPage() {
             booking={booking}
             log={log}
             graceMinutes={graceMinutes}
+            usageWindow={usageWindow}
             configurations={instrumentConfigurations}
             timeZone={timeZone}
             canConfirm={user.role === 'staff'}

@@ -1,7 +1,7 @@
 import type { TuningCoverageDto } from '@femtoslot/shared';
 import { CartesianGrid, Legend, ReferenceLine, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatInstant } from '../../../lib/wall-time';
-import { pulseDomain } from '../lib/chart-data';
+import { pulseDomain, pulseSeries, pulseShapeName } from '../lib/chart-data';
 import { ReportPanel, axisTick, tableClass, td, th, tooltipStyle } from './report-panel';
 import { type TimeAxis, dayTick } from './tuning-coverage-report';
 
@@ -16,10 +16,13 @@ export interface PulseTrendReportProps {
   csvHref: string;
 }
 
-/** Measured pump pulse duration over time against the facility's specification. */
+// One marker and line style per assumed shape, so the series stay apart without relying on colour.
+const shapeStyle = { gaussian: { marker: 'circle', dash: undefined }, sech2: { marker: 'diamond', dash: '5 3' }, unstated: { marker: 'cross', dash: '1 3' } } as const;
+
+/** Measured pump pulse duration over time against the facility's specification, one series per assumed pulse shape. */
 export function PulseTrendReport({ trend, specFs, axis, colourFor, nameFor, csvHref }: PulseTrendReportProps) {
   const points = [...trend].sort((a, b) => a.startsAt.localeCompare(b.startsAt)).map((p) => ({ ...p, t: Date.parse(p.startsAt) }));
-  const keys = [...new Set(points.map((p) => p.configurationKey))];
+  const series = pulseSeries(points);
   const chart = (
     <ScatterChart responsive margin={{ top: 16, right: 16, bottom: 8, left: 8 }} style={{ width: '100%', height: 260 }}>
       <CartesianGrid stroke="var(--color-line)" strokeDasharray="2 4" />
@@ -38,9 +41,12 @@ export function PulseTrendReport({ trend, specFs, axis, colourFor, nameFor, csvH
           label={{ value: `Specification ${fs.format(specFs)} fs`, position: 'insideTopRight', fill: 'var(--color-danger)', fontSize: 11 }}
         />
       )}
-      {keys.map((key) => (
-        <Scatter key={key} name={nameFor(key)} data={points.filter((p) => p.configurationKey === key)} fill={colourFor(key)} line={{ stroke: colourFor(key), strokeWidth: 1.5 }} isAnimationActive={false} />
-      ))}
+      {series.map((s) => {
+        const colour = colourFor(s.points[0]!.configurationKey);
+        return (
+          <Scatter key={s.key} name={s.label} data={s.points} fill={colour} shape={shapeStyle[s.key].marker} line={{ stroke: colour, strokeWidth: 1.5, strokeDasharray: shapeStyle[s.key].dash }} isAnimationActive={false} />
+        );
+      })}
     </ScatterChart>
   );
   const table = (
@@ -52,7 +58,9 @@ export function PulseTrendReport({ trend, specFs, axis, colourFor, nameFor, csvH
         <tr>
           <th scope="col" className={th}>Measured</th>
           <th scope="col" className={th}>Configuration</th>
+          <th scope="col" className={th}>Assumed shape</th>
           <th scope="col" className={th}>Pulse FWHM (fs)</th>
+          <th scope="col" className={th}>Autocorrelation FWHM (fs)</th>
           {specFs !== null && <th scope="col" className={th}>Against the specification</th>}
         </tr>
       </thead>
@@ -61,7 +69,9 @@ export function PulseTrendReport({ trend, specFs, axis, colourFor, nameFor, csvH
           <tr key={`${p.startsAt}-${i}`}>
             <td className={td}>{formatInstant(p.startsAt, axis.timeZone)}</td>
             <td className={td}>{nameFor(p.configurationKey)}</td>
+            <td className={td}>{pulseShapeName(p.pulseShape)}</td>
             <td className={td}>{fs.format(p.pulseFwhmFs)}</td>
+            <td className={td}>{p.autocorrelationFwhmFs === null ? '—' : fs.format(p.autocorrelationFwhmFs)}</td>
             {specFs !== null && <td className={td}>{p.pulseFwhmFs <= specFs ? 'within' : `${fs.format(p.pulseFwhmFs - specFs)} fs over`}</td>}
           </tr>
         ))}
@@ -71,7 +81,7 @@ export function PulseTrendReport({ trend, specFs, axis, colourFor, nameFor, csvH
   return (
     <ReportPanel
       title="Pump pulse duration"
-      description={`Pulse FWHM measured in logged sessions${specFs !== null ? `, with the facility's specification of ${fs.format(specFs)} fs as a dashed line` : ''}.`}
+      description={`Pulse FWHM measured in logged sessions, one series per assumed pulse shape (a sech² reading of the same autocorrelation is 8 % shorter than a Gaussian one; compare within a series, or by autocorrelation FWHM in the table)${specFs !== null ? `, with the facility's specification of ${fs.format(specFs)} fs as a dashed line` : ''}.`}
       chart={chart}
       chartTestId="pulse-chart"
       table={table}

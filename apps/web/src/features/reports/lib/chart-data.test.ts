@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { coverageSeries, logWavelengthAxis, pulseDomain, utilisationByInstrument, wavelengthTick } from './chart-data';
+import { coverageSeries, logWavelengthAxis, pulseDomain, pulseSeries, utilisationByInstrument, wavelengthTick } from './chart-data';
 import { defaultReportFilters, reportQuery, tuningCoverageCsvHref, utilisationCsvHref } from './report-query';
 
 const row = (period: string, instrumentId: string, booked: number, logged: number) => ({
@@ -58,5 +58,20 @@ describe('report query', () => {
 
   it('when the range is back to front, then there is no query', () => {
     expect(reportQuery({ fromDate: '2026-03-08', toDate: '2026-03-01', groupBy: 'week', instrumentId: '' }, 'UTC')).toBeNull();
+  });
+});
+
+describe('pulse trend series', () => {
+  const point = (startsAt: string, pulseFwhmFs: number, pulseShape: 'gaussian' | 'sech2' | null) => ({
+    startsAt, pulseFwhmFs, configurationKey: 'fundamental', pulseShape,
+    // Diels & Rudolph: AC FWHM = pulse × 1.414 (Gaussian), × 1.543 (sech²)
+    autocorrelationFwhmFs: pulseShape === 'gaussian' ? pulseFwhmFs * 1.41421 : pulseShape === 'sech2' ? pulseFwhmFs * 1.5427 : null,
+  });
+
+  it('when Gaussian, sech² and unstated readings are mixed, then each shape is a series of its own, labelled with its factor', () => {
+    const series = pulseSeries([point('2026-03-02', 50, 'gaussian'), point('2026-03-03', 46, 'sech2'), point('2026-03-04', 52, 'gaussian'), point('2026-03-05', 60, null)]);
+    expect(series.map((s) => [s.key, s.points.length])).toEqual([['gaussian', 2], ['sech2', 1], ['unstated', 1]]);
+    expect(series.map((s) => s.label)).toEqual(['Gaussian (AC ÷ 1.414)', 'sech² (AC ÷ 1.543)', 'Shape not stated']);
+    expect(pulseSeries([point('2026-03-02', 50, 'sech2')]).map((s) => s.key)).toEqual(['sech2']);
   });
 });

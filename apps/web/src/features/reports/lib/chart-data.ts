@@ -96,3 +96,19 @@ export function pulseDomain(values: readonly number[], specFs: number | null): [
   const top = Math.max(...values, specFs ?? 0, 1);
   return [0, Math.ceil((top * 1.15) / 10) * 10];
 }
+
+type PulsePoint = TuningCoverageDto['pulseTrend'][number];
+export type PulseSeriesKey = 'gaussian' | 'sech2' | 'unstated';
+
+/**
+ * The pulse trend split by assumed shape: a Gaussian and a sech² reading of the same autocorrelation differ by
+ * 1.543 / 1.414 (Diels & Rudolph), so each shape is its own series and points of different shapes are never joined.
+ */
+export function pulseSeries<P extends PulsePoint>(points: readonly P[]): { key: PulseSeriesKey; label: string; points: P[] }[] {
+  const labels: Record<PulseSeriesKey, string> = { gaussian: 'Gaussian (AC ÷ 1.414)', sech2: 'sech² (AC ÷ 1.543)', unstated: 'Shape not stated' };
+  return (['gaussian', 'sech2', 'unstated'] as const)
+    .map((key) => ({ key, label: labels[key], points: points.filter((p) => (p.pulseShape ?? 'unstated') === key) }))
+    .filter((s) => s.points.length > 0);
+}
+
+export const pulseShapeName = (shape: PulsePoint['pulseShape']) => (shape === 'sech2' ? 'sech²' : shape === 'gaussian' ? 'Gaussian' : 'not stated');

@@ -51,3 +51,4 @@ export const tuningCoverageCsvHref = (query: ReportQuery) => {
   const { groupBy: _unused, ...rest } = query;
   return `/api/reports/tuning-coverage.csv?${queryString(rest)}`;
 };
+export const pulseTrendCsvHref = (query: ReportQuery) => tuningCoverageCsvHref(query).replace('/tuning-coverage.csv?', '/pulse-trend.csv?');

@@ -8,6 +8,14 @@ export interface BookingUsage {
   log: UsageLogDto | null;
   /** how far the logged times may leave the booking before staff are asked to look */
   graceMinutes: number;
+  /** actual times must lie in this window (the booking widened by the facility's setting); others are refused */
+  window: UsageWindow;
+}
+
+export interface UsageWindow {
+  windowMinutes: number;
+  earliestStartsAt: string;
+  latestEndsAt: string;
 }
 
 export const getUsage = (bookingId: string, signal?: AbortSignal) =>

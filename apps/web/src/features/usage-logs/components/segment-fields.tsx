@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { isOutputKind } from '../../../components/ui/configuration-chip';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { configurationColour } from '../../../lib/configuration-colour';
-import { convertTyped, rangeText, rangeToNm, unitLabels } from '../lib/range-units';
+import { convertTyped, parsePositive, rangeText, rangeToNm, unitLabels } from '../lib/range-units';
 import type { UsageFormValues } from '../lib/usage-form-values';
 import { TraceUpload } from './trace-upload';
 
@@ -108,7 +108,7 @@ export function SegmentFields({ form, index, bookingId, configurations, readOnly
         )}
       </div>
 
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid gap-3 sm:grid-cols-4">
         <TextField label="Average power (mW)" inputMode="decimal" autoComplete="off" error={errors?.averagePowerMw?.message} {...register(`segments.${index}.averagePowerMw` as const)} />
         <TextField
           label="Pulse duration, FWHM (fs)"
@@ -118,10 +118,18 @@ export function SegmentFields({ form, index, bookingId, configurations, readOnly
           error={errors?.pulseFwhmFs?.message}
           {...register(`segments.${index}.pulseFwhmFs` as const, { onChange: () => setValue(`segments.${index}.traceAttachmentId` as const, '') })}
         />
-        <SelectField label="Pulse shape (for the trace)" {...register(`segments.${index}.pulseShape` as const)}>
+        <SelectField label="Assumed pulse shape" {...register(`segments.${index}.pulseShape` as const)}>
           <option value="gaussian">Gaussian (AC ÷ 1.414)</option>
           <option value="sech2">sech² (AC ÷ 1.543)</option>
         </SelectField>
+        <TextField
+          label="Spectral FWHM (nm)"
+          inputMode="decimal"
+          autoComplete="off"
+          hint="Optional: checks the pulse against the transform limit"
+          error={errors?.spectralFwhmNm?.message}
+          {...register(`segments.${index}.spectralFwhmNm` as const)}
+        />
       </div>
 
       <div className={readOnly && !traceOnFile ? 'hidden' : undefined}>
@@ -129,6 +137,8 @@ export function SegmentFields({ form, index, bookingId, configurations, readOnly
         <TraceUpload
           bookingId={bookingId}
           shape={segment.pulseShape}
+          centreNm={range?.minNm}
+          spectralFwhmNm={parsePositive(segment.spectralFwhmNm) ?? undefined}
           colour={colour?.hex ?? 'var(--color-accent)'}
           disabled={readOnly}
           existing={traceOnFile}

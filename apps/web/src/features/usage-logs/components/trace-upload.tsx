@@ -1,4 +1,4 @@
-import { type AttachmentDto, type AutocorrelationResult, type PulseShape, analyseAutocorrelation, parseAutocorrelationCsv } from '@femtoslot/shared';
+import { type AttachmentDto, type AutocorrelationResult, type PulseShape, analyseAutocorrelation, assertPhysicalPulse, parseAutocorrelationCsv } from '@femtoslot/shared';
 import { type ReactNode, Suspense, useEffect, useRef, useState } from 'react';
 import { DropZone } from '../../../components/ui/drop-zone';
 import { PartLoadBoundary, lazyPart } from '../../../components/ui/lazy-part';
@@ -28,6 +28,10 @@ export interface TraceOutcome {
 export interface TraceUploadProps {
   bookingId: string;
   shape: PulseShape;
+  /** the segment's shortest wavelength (nm): no pulse there is shorter than one optical cycle */
+  centreNm?: number;
+  /** the spectral FWHM (nm), when known: no pulse is shorter than its transform limit */
+  spectralFwhmNm?: number;
   colour: string;
   disabled?: boolean;
   /** the trace already on the saved log, if any */
@@ -56,11 +60,22 @@ function readLocally(text: string, shape: PulseShape): Local {
   return { points, analysis: analyseAutocorrelation(points, shape) };
 }
 
+/** Why the API would refuse this pulse (below one optical cycle or the transform limit), or null. */
+function implausible(local: Local, shape: PulseShape, centreNm?: number, spectralFwhmNm?: number): string | null {
+  if (centreNm === undefined) return null;
+  try {
+    assertPhysicalPulse({ pulseFwhmFs: local.analysis.pulseFwhmFs, centreNm, spectralFwhmNm: spectralFwhmNm ?? null, shape });
+    return null;
+  } catch (cause) {
+    return messageOf(cause);
+  }
+}
+
 /**
  * An autocorrelation trace for one segment: read here to draw it, stored as an attachment, and analysed by the
  * API, whose pulse FWHM is the value the log keeps.
  */
-export function TraceUpload({ bookingId, shape, colour, disabled, existing, onResult }: TraceUploadProps) {
+export function TraceUpload({ bookingId, shape, centreNm, spectralFwhmNm, colour, disabled, existing, onResult }: TraceUploadProps) {
   const [file, setFile] = useState<File | null>(null);
   const [text, setText] = useState<string | null>(null);
   const [local, setLocal] = useState<Local | null>(null);
@@ -77,7 +92,7 @@ export function TraceUpload({ bookingId, shape, colour, disabled, existing, onRe
     setBusy(true);
     setServer(null);
     try {
-      const [stored, result] = await Promise.all([upload, analyseTrace({ file: picked, shape: pickedShape })]);
+      const [stored, result] = await Promise.all([upload, analyseTrace({ file: picked, shape: pickedShape, centreNm, spectralFwhmNm })]);
       if (ticket !== run.current) return;
       setAttachment(stored);
       setServer(result);
@@ -99,13 +114,18 @@ export function TraceUpload({ bookingId, shape, colour, disabled, existing, onRe
     setLocal(null);
     const content = await readText(picked);
     setText(content);
+    let read: Local;
     try {
-      setLocal(readLocally(content, shape));
+      read = readLocally(content, shape);
     } catch (cause) {
       // the API runs the same engine: a file that fails here would fail there, so it is not stored
       setError(messageOf(cause));
       return;
     }
+    // drawn either way (fringes show why), stored only when the pulse is physical
+    setLocal(read);
+    const problem = implausible(read, shape, centreNm, spectralFwhmNm);
+    if (problem) return setError(problem);
     void analyseOnServer(picked, shape, uploadAttachment({ bookingId, file: picked }));
   };
 
@@ -116,12 +136,16 @@ export function TraceUpload({ bookingId, shape, colour, disabled, existing, onRe
     lastShape.current = shape;
     if (!file || text === null || !local) return;
     setError(null);
+    let read: Local;
     try {
-      setLocal(readLocally(text, shape));
+      read = readLocally(text, shape);
     } catch (cause) {
       setError(messageOf(cause));
       return;
     }
+    setLocal(read);
+    const problem = implausible(read, shape, centreNm, spectralFwhmNm);
+    if (problem) return setError(problem);
     void analyseOnServer(file, shape, attachment ?? uploadAttachment({ bookingId, file }));
   }, [shape]);
 

@@ -8,6 +8,7 @@ import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError } from '../../../lib/api-client';
 import { formatInstant, formatMinutes, minutesBetween } from '../../../lib/wall-time';
+import type { UsageWindow } from '../api/get-usage';
 import { useSaveUsage } from '../api/save-usage';
 import { type LockedDetails, leavesBooking, lockedDetails, logStatusOf } from '../lib/log-status';
 import { type UsageFormValues, blankSegment, buildUsageBody, formFieldForPath, initialUsageValues, segmentIndexOf, usageFormSchema } from '../lib/usage-form-values';
@@ -20,6 +21,8 @@ export interface UsageFormProps {
   booking: BookingDto;
   log: UsageLogDto | null;
   graceMinutes: number;
+  /** where actual times may lie; the API refuses others */
+  usageWindow?: UsageWindow;
   /** the booking's instrument's configurations */
   configurations: UsageConfiguration[];
   timeZone: string;
@@ -35,7 +38,7 @@ function lockText(d: LockedDetails, timeZone: string) {
 }
 
 /** The session log of one booking: actual times, segments, notes and attachments. */
-export function UsageForm({ booking, log: loaded, graceMinutes, configurations, timeZone, canConfirm }: UsageFormProps) {
+export function UsageForm({ booking, log: loaded, graceMinutes, usageWindow, configurations, timeZone, canConfirm }: UsageFormProps) {
   const save = useSaveUsage();
   const log = newerLog(save.data?.log, loaded);
   const form = useForm<UsageFormValues>({ resolver: zodResolver(usageFormSchema), defaultValues: initialUsageValues(booking, loaded, timeZone) });
@@ -52,6 +55,7 @@ export function UsageForm({ booking, log: loaded, graceMinutes, configurations, 
   const built = useMemo(() => buildUsageBody(values, timeZone, attachments.map((a) => a.id)), [values, timeZone, attachments]);
   const lengthMinutes = built ? minutesBetween(built.body.actualStartsAt, built.body.actualEndsAt) : null;
   const leaves = built !== null && leavesBooking(booking, built.body.actualStartsAt, built.body.actualEndsAt, graceMinutes);
+  const refused = built !== null && usageWindow !== undefined && leavesBooking(booking, built.body.actualStartsAt, built.body.actualEndsAt, usageWindow.windowMinutes);
 
   const onError = (error: Error) => {
     if (!isApiError(error)) return setFailure({ code: 'error', message: error.message });
@@ -67,7 +71,8 @@ export function UsageForm({ booking, log: loaded, graceMinutes, configurations, 
     }
     const index = segmentIndexOf(error.details);
     if (index !== null && index < values.segments.length) {
-      const field = error.code === 'out_of_range' ? 'minValue' : values.segments[index]!.wholeSession ? null : 'startTime';
+      const pulseCodes = ['below_optical_cycle', 'below_transform_limit', 'too_few_points', 'no_peak', 'peak_at_edge'];
+      const field = error.code === 'out_of_range' ? 'minValue' : pulseCodes.includes(error.code) ? 'pulseFwhmFs' : values.segments[index]!.wholeSession ? null : 'startTime';
       if (field) form.setError(`segments.${index}.${field}`, { type: 'server', message: error.message });
     }
     setFailure({ code: error.code, message: error.message });
@@ -122,6 +127,11 @@ export function UsageForm({ booking, log: loaded, graceMinutes, configurations, 
             <h3 className="text-xs font-bold tracking-wider text-accent uppercase">1 · When the beam was actually used</h3>
             <p className="text-sm text-ink-muted">
               Booked {formatInstant(booking.startsAt, timeZone)} – {formatInstant(booking.endsAt, timeZone)}. Wall-clock time in {timeZone} (facility time).
+              {usageWindow && (
+                <span data-testid="usage-window">
+                  {' '}Actual times may run from {formatInstant(usageWindow.earliestStartsAt, timeZone)} to {formatInstant(usageWindow.latestEndsAt, timeZone)} ({usageWindow.windowMinutes} min either side of the booking).
+                </span>
+              )}
             </p>
             <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
               <TextField label="Actual start date" type="date" error={errors.actualStartDate?.message} {...form.register('actualStartDate')} />
@@ -137,7 +147,12 @@ export function UsageForm({ booking, log: loaded, graceMinutes, configurations, 
             {lengthMinutes !== null && (
               <p className={lengthMinutes <= 0 ? 'text-sm font-semibold text-danger' : 'text-sm text-ink-muted'} data-testid="usage-length" data-minutes={lengthMinutes}>
                 {lengthMinutes <= 0 ? 'The session must end after it starts.' : `Session length: ${formatMinutes(lengthMinutes)}`}
-                {leaves && !readOnly && (
+                {refused && !readOnly && (
+                  <span data-testid="outside-window-hint" className="ml-1 font-semibold text-danger">
+                    — more than {usageWindow!.windowMinutes} min outside the booking; the facility does not accept these times.
+                  </span>
+                )}
+                {leaves && !refused && !readOnly && (
                   <span data-testid="outside-grace-hint" className="ml-1 font-semibold text-caution-ink">
                     — more than {graceMinutes} min outside the booking; the log will be flagged for staff review.
                   </span>

@@ -29,16 +29,22 @@ describe('usage log form values', () => {
       actualStartsAt: '2026-03-03T14:10:00.000Z',
       actualEndsAt: '2026-03-03T18:00:00.000Z',
       segments: [{ configurationId: id(3), startsAt: '2026-03-03T14:10:00.000Z', endsAt: '2026-03-03T18:00:00.000Z', minNm: 1290, maxNm: 1310,
-        averagePowerMw: 250, pulseFwhmFs: 98.5, pulseShape: 'sech2', traceAttachmentId: id(9) }],
+        averagePowerMw: 250, pulseFwhmFs: 98.5, pulseShape: 'sech2', spectralFwhmNm: null, traceAttachmentId: id(9) }],
       attachmentIds: [id(10)],
     });
   });
 
-  it('when the pulse duration is typed and the segment has its own span, then no shape or trace goes out and the span is read in the zone', () => {
+  it('when the pulse duration is typed and the segment has its own span, then its assumed shape and bandwidth go out without a trace and the span is read in the zone', () => {
     const values = initialUsageValues(booking, null, zone);
-    values.segments[0] = { ...values.segments[0]!, wholeSession: false, startTime: '10:00', endTime: '11:30', pulseFwhmFs: '120' };
+    values.segments[0] = { ...values.segments[0]!, wholeSession: false, startTime: '10:00', endTime: '11:30', pulseFwhmFs: '120', spectralFwhmNm: '12.5' };
     const segment = buildUsageBody(values, zone, [])!.body.segments[0]!;
-    expect(segment).toMatchObject({ startsAt: '2026-03-03T15:00:00.000Z', endsAt: '2026-03-03T16:30:00.000Z', pulseFwhmFs: 120, pulseShape: null, traceAttachmentId: null, averagePowerMw: null });
+    expect(segment).toMatchObject({ startsAt: '2026-03-03T15:00:00.000Z', endsAt: '2026-03-03T16:30:00.000Z', pulseFwhmFs: 120, pulseShape: 'gaussian', spectralFwhmNm: 12.5, traceAttachmentId: null, averagePowerMw: null });
+  });
+
+  it('when no pulse duration is given, then neither shape nor bandwidth goes out', () => {
+    const values = initialUsageValues(booking, null, zone);
+    values.segments[0] = { ...values.segments[0]!, spectralFwhmNm: '12.5' };
+    expect(buildUsageBody(values, zone, [])!.body.segments[0]).toMatchObject({ pulseFwhmFs: null, pulseShape: null, spectralFwhmNm: null });
   });
 
   it('when a range end is missing, then there is no body yet', () => {
@@ -51,8 +57,8 @@ describe('usage log form values', () => {
     const log = {
       id: id(20), bookingId: booking.id, status: 'submitted', actualStartsAt: booking.startsAt, actualEndsAt: booking.endsAt, outsideGrace: false, notes: 'ok',
       segments: [
-        { id: id(21), configurationId: id(3), configurationKey: 'opa_signal', startsAt: booking.startsAt, endsAt: booking.endsAt, minNm: 1200, maxNm: 1400, averagePowerMw: 300, pulseFwhmFs: null, pulseShape: null, traceAttachmentId: null, notes: '' },
-        { id: id(22), configurationId: id(7), configurationKey: 'dfg', startsAt: '2026-03-03T16:00:00.000Z', endsAt: booking.endsAt, minNm: 4000, maxNm: 4500, averagePowerMw: null, pulseFwhmFs: 140, pulseShape: 'gaussian', traceAttachmentId: id(23), notes: '' },
+        { id: id(21), configurationId: id(3), configurationKey: 'opa_signal', startsAt: booking.startsAt, endsAt: booking.endsAt, minNm: 1200, maxNm: 1400, averagePowerMw: 300, pulseFwhmFs: null, pulseShape: null, spectralFwhmNm: null, traceAttachmentId: null, notes: '' },
+        { id: id(22), configurationId: id(7), configurationKey: 'dfg', startsAt: '2026-03-03T16:00:00.000Z', endsAt: booking.endsAt, minNm: 4000, maxNm: 4500, averagePowerMw: null, pulseFwhmFs: 140, pulseShape: 'gaussian', spectralFwhmNm: null, traceAttachmentId: id(23), notes: '' },
       ],
       attachments: [], submittedBy: 'Ida', submittedAt: booking.endsAt, confirmedBy: null, confirmedAt: null, billedBy: null, billedAt: null,
     } satisfies UsageLogDto;

@@ -21,6 +21,8 @@ export const segmentFormSchema = z
     averagePowerMw: z.string().trim(),
     pulseFwhmFs: z.string().trim(),
     pulseShape: z.enum(pulseShapes),
+    /** spectral FWHM in nm, optional: with it the API also checks the transform limit */
+    spectralFwhmNm: z.string().trim(),
     /** set by a trace upload; '' when the pulse duration was typed */
     traceAttachmentId: z.string(),
     notes: z.string().max(2000, 'Keep segment notes under 2000 characters'),
@@ -31,6 +33,8 @@ export const segmentFormSchema = z
     if (parseOptionalNumber(s.averagePowerMw) === null) ctx.addIssue({ code: 'custom', path: ['averagePowerMw'], message: 'Give the power in mW, or leave it empty' });
     const pulse = parseOptionalNumber(s.pulseFwhmFs);
     if (pulse === null || pulse === 0) ctx.addIssue({ code: 'custom', path: ['pulseFwhmFs'], message: 'Give the duration in fs, or leave it empty' });
+    const bandwidth = parseOptionalNumber(s.spectralFwhmNm);
+    if (bandwidth === null || bandwidth === 0) ctx.addIssue({ code: 'custom', path: ['spectralFwhmNm'], message: 'Give the spectral width in nm, or leave it empty' });
     if (!s.wholeSession) {
       for (const key of ['startDate', 'endDate'] as const) if (!date.safeParse(s[key]).success) ctx.addIssue({ code: 'custom', path: [key], message: 'Choose a date' });
       for (const key of ['startTime', 'endTime'] as const) if (!time.safeParse(s[key]).success) ctx.addIssue({ code: 'custom', path: [key], message: 'Choose a time' });
@@ -65,6 +69,7 @@ export function blankSegment(configurationId: string, range: { minNm: number; ma
     averagePowerMw: '',
     pulseFwhmFs: '',
     pulseShape: 'gaussian',
+    spectralFwhmNm: '',
     traceAttachmentId: '',
     notes: '',
   };
@@ -87,6 +92,7 @@ export function initialUsageValues(booking: BookingDto, log: UsageLogDto | null,
         averagePowerMw: numberText(s.averagePowerMw),
         pulseFwhmFs: numberText(s.pulseFwhmFs),
         pulseShape: s.pulseShape ?? 'gaussian',
+        spectralFwhmNm: numberText(s.spectralFwhmNm),
         traceAttachmentId: s.traceAttachmentId ?? '',
         notes: s.notes ?? '',
       }))
@@ -125,7 +131,8 @@ export function buildUsageBody(values: UsageFormValues, timeZone: string, attach
     }
     const power = parseOptionalNumber(s.averagePowerMw);
     const pulse = parseOptionalNumber(s.pulseFwhmFs);
-    if (power === null || pulse === null) return null;
+    const bandwidth = parseOptionalNumber(s.spectralFwhmNm);
+    if (power === null || pulse === null || bandwidth === null) return null;
     const fromTrace = s.traceAttachmentId !== '' && pulse !== undefined;
     segments.push({
       configurationId: s.configurationId,
@@ -133,8 +140,9 @@ export function buildUsageBody(values: UsageFormValues, timeZone: string, attach
       ...range,
       averagePowerMw: power ?? null,
       pulseFwhmFs: pulse ?? null,
-      // the shape only means something when the duration was deconvolved from a trace here
-      pulseShape: fromTrace ? s.pulseShape : null,
+      // the shape the duration was deconvolved with (here from a trace, or by the user): the pulse trend keeps shapes apart
+      pulseShape: pulse !== undefined ? s.pulseShape : null,
+      spectralFwhmNm: pulse !== undefined ? (bandwidth ?? null) : null,
       traceAttachmentId: fromTrace ? s.traceAttachmentId : null,
       ...(s.notes.trim() ? { notes: s.notes.trim() } : {}),
     });
@@ -158,6 +166,7 @@ const segmentFields: Record<string, keyof SegmentFormValues> = {
   averagePowerMw: 'averagePowerMw',
   pulseFwhmFs: 'pulseFwhmFs',
   pulseShape: 'pulseShape',
+  spectralFwhmNm: 'spectralFwhmNm',
   traceAttachmentId: 'pulseFwhmFs',
   notes: 'notes',
 };

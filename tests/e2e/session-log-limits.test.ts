@@ -1,0 +1,63 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
+import { interferometricTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
+import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
+import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
+import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
+import { User } from '@femtoslot/api/src/modules/users/user.entity';
+import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+
+let t: TestApi;
+let browser: Awaited<ReturnType<typeof launchBrowser>>;
+beforeAll(async () => {
+  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await t?.close();
+});
+
+/** A fringe-resolved (interferometric) autocorrelation of a 30 fs pulse at 800 nm, 8 : 1 (Diels & Rudolph). */
+function fringeFile(): string {
+  const dir = path.join(process.env.ARTIFACTS_DIR ?? 'artifacts', 'fixtures');
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, 'iac-fringes-800nm.csv');
+  writeFileSync(file, traceCsv(interferometricTrace(30, 800), { delayDigits: 4 }));
+  return file;
+}
+
+describe('session-log limits in Chromium', () => {
+  it('when a member drops a fringe-resolved trace and types times outside the window, then the page says why, draws the trace and stores nothing', async () => {
+    const db = t.api.ctx.db;
+    const member = await db.getRepository(User).findOneByOrFail({ email: 'member@harrowpoint.test' });
+    const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
+    const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
+    const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
+    const start = await freePastSlot(db, aurora.id, 1, new Date(Date.now() - 3_600_000));
+    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: start, hours: 1, nm: 800 });
+
+    const page = await browser.context.newPage();
+    await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');
+    await page.goto(`${t.api.url}/sessions/${session.id}`);
+    const form = page.getByTestId('usage-form');
+    await form.waitFor();
+    expect(await page.getByTestId('usage-window').textContent()).toMatch(/60 min either side of the booking/);
+    await form.locator('[name="segments.0.minValue"]').fill('795');
+    await form.locator('[name="segments.0.maxValue"]').fill('805');
+    await page.getByTestId('trace-drop').first().locator('input[type="file"]').setInputFiles(fringeFile());
+    const error = page.getByTestId('trace-error').first();
+    await error.waitFor({ timeout: 15_000 });
+    // One optical cycle at 795 nm: 795e-9 m / 299 792 458 m/s = 2.65 fs (CODATA 2018 c)
+    expect(await error.textContent()).toMatch(/shorter than one optical cycle at 795 nm \(2\.65 fs\)/);
+    await page.getByTestId('trace-plot').first().waitFor();
+    await form.locator('[name="actualStartTime"]').fill('00:00');
+    await page.getByTestId('outside-window-hint').waitFor();
+    await screenshot(page, 'session-limits-01-fringe-trace-and-window');
+    const [{ n }] = await db.query('SELECT count(*)::int AS n FROM attachments WHERE booking_id = $1', [session.id]);
+    expect(n).toBe(0);
+  });
+});
