@@ -53,3 +53,11 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Training courses, configuration requirements and sign-offs, the laser-safety officer flag.
+import { TrainingAuthorisation1765800000000 } from './migrations/1765800000000-training-authorisation';
+import { TrainingCourse } from '../modules/training/training-course.entity';
+import { ConfigurationRequirement } from '../modules/training/configuration-requirement.entity';
+import { ConfigurationSignoff } from '../modules/training/configuration-signoff.entity';
+(entities as unknown as (new () => object)[]).push(TrainingCourse, ConfigurationRequirement, ConfigurationSignoff);
+(migrations as unknown as (new () => object)[]).push(TrainingAuthorisation1765800000000);
