@@ -45,18 +45,19 @@ export async function sendTrainingReminders(ctx: AppContext, now = new Date()): 
     if (!facility) return { queued: 0 };
     const window = facility.policies.trainingReminderDays ?? DEFAULT_TRAINING_REMINDER_DAYS;
     const today = localDate(now, facility.time_zone);
-    const courses: Due[] = await m.query(
+    // TypeORM answers an UPDATE … RETURNING with [rows, affected count].
+    const [courses] = (await m.query(
       `UPDATE training_records t SET reminder_sent_at = $3 FROM users u, training_courses c
         WHERE u.id = t.user_id AND c.id = t.course_id AND u.active AND t.revoked_at IS NULL AND t.reminder_sent_at IS NULL
           AND t.expires_on >= $1::date AND t.expires_on <= $1::date + $2::int
           AND NOT EXISTS (SELECT 1 FROM training_records n WHERE n.user_id = t.user_id AND n.course_id = t.course_id
                             AND n.revoked_at IS NULL AND n.expires_on > t.expires_on)
-        RETURNING t.id, u.email, u.name, c.name AS what, t.expires_on::text`, [today, window, now]);
-    const signoffs: Due[] = await m.query(
+        RETURNING t.id, u.email, u.name, c.name AS what, t.expires_on::text`, [today, window, now])) as [Due[], number];
+    const [signoffs] = (await m.query(
       `UPDATE configuration_signoffs s SET reminder_sent_at = $3 FROM users u, configurations c, instruments i
         WHERE u.id = s.user_id AND c.id = s.configuration_id AND i.id = c.instrument_id AND u.active AND s.revoked_at IS NULL
           AND s.reminder_sent_at IS NULL AND s.expires_on IS NOT NULL AND s.expires_on >= $1::date AND s.expires_on <= $1::date + $2::int
-        RETURNING s.id, u.email, u.name, c.name || ' on ' || i.name AS what, s.expires_on::text`, [today, window, now]);
+        RETURNING s.id, u.email, u.name, c.name || ' on ' || i.name AS what, s.expires_on::text`, [today, window, now])) as [Due[], number];
     const url = `${ctx.env.APP_URL}/training`;
     for (const [kind, rows] of [['course', courses], ['signoff', signoffs]] as const) {
       for (const r of rows) {

@@ -90,9 +90,10 @@ export function trainingService(ctx: AppContext) {
       await activePerson(m, input.userId);
       const config: { id: string }[] = await m.query(`SELECT id FROM configurations WHERE id = $1`, [input.configurationId]);
       if (!config[0]) throw new AppError('invalid_configuration', 'That configuration does not exist', 422, { configurationId: input.configurationId });
-      const replaced: { id: string }[] = await m.query(
+      // TypeORM answers an UPDATE … RETURNING with [rows, affected count].
+      const [replaced] = (await m.query(
         `UPDATE configuration_signoffs SET revoked_at = now(), revoked_by = $3, revoked_reason = 'Replaced by a new sign-off'
-          WHERE user_id = $1 AND configuration_id = $2 AND revoked_at IS NULL RETURNING id`, [input.userId, input.configurationId, actor.id]);
+          WHERE user_id = $1 AND configuration_id = $2 AND revoked_at IS NULL RETURNING id`, [input.userId, input.configurationId, actor.id])) as [{ id: string }[], number];
       for (const r of replaced) {
         await recordAudit(m, { actorUserId: actor.id, action: 'signoff.revoked', entityType: 'configuration_signoff', entityId: r.id, after: { reason: 'Replaced by a new sign-off' }, requestId });
       }
