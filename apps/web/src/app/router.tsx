@@ -78,6 +78,9 @@ export const createRoutes = (queryClient: QueryClient): RouteObject[] => [
               areaRoute('people', paths.people, async () => ({
                 Component: (await import('./routes/people/people')).PeoplePage,
               })),
+              areaRoute('training', paths.training, async () => ({
+                Component: (await import('./routes/training/training')).TrainingPage,
+              })),
             ],
           },
         ],

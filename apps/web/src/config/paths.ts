@@ -12,6 +12,7 @@ export const paths = {
   reports: '/reports',
   settings: '/settings',
   people: '/people',
+  training: '/training',
 } as const;
 
 export const sessionLogPath = (bookingId: string) => `/sessions/${encodeURIComponent(bookingId)}`;

@@ -99,3 +99,12 @@ export const rateCardKeys = {
   all: ['rate-cards'] as const,
   list: () => [...rateCardKeys.all, 'list'] as const,
 };
+
+export const trainingKeys = {
+  all: ['training'] as const,
+  me: () => [...trainingKeys.all, 'me'] as const,
+  courses: () => [...trainingKeys.all, 'courses'] as const,
+  requirements: () => [...trainingKeys.all, 'requirements'] as const,
+  people: (q: string) => [...trainingKeys.all, 'people', q] as const,
+  person: (id: string) => [...trainingKeys.all, 'person', id] as const,
+};
