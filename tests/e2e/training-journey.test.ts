@@ -93,6 +93,12 @@ describe('training journey in Chromium', () => {
     await dialog.getByTestId('confirm-revoke').click();
     await panel.locator('[data-testid="signoff-row"][data-state="revoked"]').waitFor();
     await screenshot(officer, 'training-05-officer-revoked');
+    await officer.getByTestId('courses-section').locator('summary').click();
+    const dfgRequirement = officer.locator('[data-testid="requirement-row"]', { hasText: 'DFG' });
+    await dfgRequirement.waitFor();
+    expect(await dfgRequirement.locator('input[name="signoffLabel"]').inputValue()).toMatch(/supervised session/);
+    await officer.getByTestId('courses-section').scrollIntoViewIfNeeded();
+    await screenshot(officer, 'training-07-officer-courses-and-requirements');
 
     await member.reload();
     await dfgRow(member).waitFor();

@@ -5,10 +5,13 @@ import { Notice } from '../../../components/ui/notice';
 import { PageHeader } from '../../../components/ui/page-header';
 import { PageLoading } from '../../../components/ui/spinner';
 import { useFacility } from '../../../features/facility/api/get-facility';
+import { useCourses, useRequirements } from '../../../features/training/api/get-courses';
 import { useMyTraining } from '../../../features/training/api/get-my-training';
 import { usePersonTraining } from '../../../features/training/api/get-person-training';
+import { CourseForm } from '../../../features/training/components/course-form';
 import { PersonSearch } from '../../../features/training/components/person-search';
 import { PersonTrainingPanel } from '../../../features/training/components/person-training-panel';
+import { RequirementsEditor } from '../../../features/training/components/requirements-editor';
 import { useSignedInUser } from '../../../lib/auth';
 
 /** Everyone sees their own training here; staff and admin find anyone; the laser-safety officer records and revokes. */
@@ -38,6 +41,29 @@ export function TrainingPage() {
           {shown.data && <PersonTrainingPanel data={shown.data} canEdit={me.laserSafetyOfficer} today={today} />}
         </div>
       </div>
+      {me.laserSafetyOfficer && <CoursesSection />}
     </>
+  );
+}
+
+/** The officer's list of courses and what each configuration asks for. */
+function CoursesSection() {
+  const courses = useCourses();
+  const requirements = useRequirements();
+  return (
+    <details className="mt-8 space-y-3" data-testid="courses-section">
+      <summary className="cursor-pointer text-lg font-bold">Courses and configuration requirements</summary>
+      <div className="mt-3 space-y-4">
+        <ul className="flex flex-wrap gap-2 text-sm">
+          {(courses.data ?? []).map((c) => (
+            <li key={c.id} className="rounded-lg border border-line bg-panel px-3 py-1.5">
+              <span className="font-semibold">{c.name}</span> <span className="text-ink-muted">· {c.validityMonths} months{c.requiredForAll ? ' · everywhere' : ''}{c.active ? '' : ' · withdrawn'}</span>
+            </li>
+          ))}
+        </ul>
+        <CourseForm />
+        {courses.data && requirements.data && <RequirementsEditor requirements={requirements.data} courses={courses.data} />}
+      </div>
+    </details>
   );
 }
