@@ -90,6 +90,8 @@ export function trainingService(ctx: AppContext) {
       await activePerson(m, input.userId);
       const config: { id: string }[] = await m.query(`SELECT id FROM configurations WHERE id = $1`, [input.configurationId]);
       if (!config[0]) throw new AppError('invalid_configuration', 'That configuration does not exist', 422, { configurationId: input.configurationId });
+      const horizon: { ok: boolean }[] = await m.query(`SELECT $1::date <= $2::date + 366 AS ok`, [input.grantedOn, await facilityToday(m)]);
+      if (!horizon[0]!.ok) throw new AppError('rule_violation', 'A sign-off can start at most a year ahead', 422, { grantedOn: input.grantedOn });
       // TypeORM answers an UPDATE … RETURNING with [rows, affected count].
       const [replaced] = (await m.query(
         `UPDATE configuration_signoffs SET revoked_at = now(), revoked_by = $3, revoked_reason = 'Replaced by a new sign-off'

@@ -117,6 +117,8 @@ describe('training and sign-offs in the booking check', () => {
     expect(early.status).toBe(422);
     expect(early.body.error.details.gaps).toEqual([expect.objectContaining({ kind: 'signoff', reason: 'not_yet_valid', validFrom: from })]);
     expect((await w.book(w.configs.dfg.id, noonOn(from), 4300)).status).toBe(201);
+    const tooFar = await w.officer.post('/api/training/signoffs').send({ userId: w.booker.user.id, configurationId: w.configs.dfg.id, grantedOn: addDays(w.today, 400) });
+    expect([tooFar.status, tooFar.body.error.code]).toEqual([422, 'rule_violation']);
   });
 
   it('when a session sits either side of midnight in the facility zone on the first day of daylight saving time, then the expiry date counts in that zone', async () => {
