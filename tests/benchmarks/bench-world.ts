@@ -93,8 +93,9 @@ export async function seedBenchWorld(databaseUrl: string, now = new Date()): Pro
     await insertRows(c, 'organisations', { id: 'uuid', name: 'text', kind: 'text' }, orgs);
     const users = orgs.map((o, i) => ({ id: randomUUID(), organisation_id: o.id, email: `bench.user${i}@bench.example.test`, name: `Bench user ${i}`, role: o.kind === 'internal' ? 'member' : 'collaborator', password_hash: hash }));
     await insertRows(c, 'users', { id: 'uuid', organisation_id: 'uuid', email: 'text', name: 'text', role: 'text', password_hash: 'text' }, users);
-    await insertRows(c, 'training_records', { user_id: 'uuid', course: 'text', completed_on: 'date', expires_on: 'date' },
-      users.map((u) => ({ user_id: u.id, course: 'Class 4 laser safety', completed_on: '2024-01-01', expires_on: '2030-12-31' })));
+    const courses = (await c.query<{ id: string }>(`SELECT id FROM training_courses WHERE required_for_all AND active`)).rows;
+    await insertRows(c, 'training_records', { user_id: 'uuid', course_id: 'uuid', completed_on: 'date', expires_on: 'date' },
+      users.flatMap((u) => courses.map((k) => ({ user_id: u.id, course_id: k.id, completed_on: '2024-01-01', expires_on: '2030-12-31' }))));
     const accounts = orgs.map((o, i) => o.kind === 'internal'
       ? { id: randomUUID(), organisation_id: o.id, kind: 'cost_centre', name: `Bench CC ${i}`, cost_centre_code: `BCC-${i}`, status: 'approved' }
       : { id: randomUUID(), organisation_id: o.id, kind: 'external', name: `Bench external ${i}`, billing_contact_email: `ap${i}@bench.example.test`, po_number: `BPO-${i}`, po_expires_on: '2030-12-31', status: 'approved' });

@@ -47,13 +47,13 @@ describe('web shell in Chromium', () => {
     try {
       const staff = await staffContext.context.newPage();
       await signInThroughForm(staff, t.api.url, 'staff@harrowpoint.test');
-      expect(await navAreas(staff)).toEqual(['nav-beam-time', 'nav-calendar', 'nav-reports', 'nav-sessions', 'nav-settings', 'nav-sources']);
+      expect(await navAreas(staff)).toEqual(['nav-beam-time', 'nav-calendar', 'nav-reports', 'nav-sessions', 'nav-settings', 'nav-sources', 'nav-training']);
       expect(await staff.getByTestId('laser-caution').first().isVisible()).toBe(true);
       await screenshot(staff, '03-staff-calendar');
 
       const collaborator = await collaboratorContext.context.newPage();
       await signInThroughForm(collaborator, t.api.url, 'collaborator@harrowpoint.test');
-      expect(await navAreas(collaborator)).toEqual(['nav-beam-time', 'nav-billing', 'nav-calendar', 'nav-sessions']);
+      expect(await navAreas(collaborator)).toEqual(['nav-beam-time', 'nav-billing', 'nav-calendar', 'nav-sessions', 'nav-training']);
       await collaborator.goto(`${t.api.url}/people`);
       await collaborator.getByTestId('not-available').waitFor();
       await screenshot(collaborator, '04-collaborator-people-refused');

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { routeTable } from '@femtoslot/api/src/server';
 import type { RouteDef } from '@femtoslot/api/src/lib/auth/routes';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
-import { TrainingRecord } from '@femtoslot/api/src/modules/safety/training-record.entity';
+import { giveLaserSafetyTraining } from '@femtoslot/api/src/test-support/training';
 import { makeInstrument } from '@femtoslot/api/src/test-support/booking-fixture';
 import { pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { makePeople, startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
@@ -30,7 +30,7 @@ async function organisationWithRecords(instrument: Awaited<ReturnType<typeof mak
   const account = await db.getRepository(Account).save({ organisationId: people.org.id, kind: 'cost_centre', name: `Account ${marker}`, costCentreCode: `CC-${people.tag}`, status: 'approved' } as Account);
   const pending = await db.getRepository(Account).save({ organisationId: people.org.id, kind: 'cost_centre', name: `Pending ${marker}`, costCentreCode: `CP-${people.tag}`, status: 'pending' } as Account);
   const member = people.users.member!;
-  await db.getRepository(TrainingRecord).insert({ userId: member.id, course: 'Class 4 laser safety', completedOn: '2026-01-01', expiresOn: '2028-01-01' });
+  await giveLaserSafetyTraining(db, member.id);
   const start = new Date(Date.now() - hoursAgo * 3_600_000);
   start.setUTCMinutes(0, 0, 0);
   const booking = await pastSession(t, { instrumentId: instrument.instrument.id, configuration: instrument.configs.opa_signal, accountId: account.id, userId: member.id, organisationId: people.org.id, startsAt: start, hours: 2, nm: 1300 });

@@ -14,6 +14,7 @@ import { startUsageJobs } from './modules/usage/usage.service';
 import { startBillingJobs } from './modules/billing/close-job';
 import { startAuthJobs } from './modules/auth/auth.service';
 import { ReferenceCache } from './modules/instruments/reference-data';
+import { startTrainingJobs } from './modules/training/training-reminders';
 
 export interface RunningApi {
   url: string;
@@ -28,7 +29,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
   const db = createDataSource(env.DATABASE_URL);
   await db.initialize();
   const outbox = new Outbox(db, env.DATABASE_URL, smtpTransport(env.SMTP_HOST, env.SMTP_PORT, env.MAIL_FROM), logger, {
-    retryLimit: env.OUTBOX_RETRY_LIMIT, retryDelaySeconds: env.OUTBOX_RETRY_DELAY_SECONDS, pollingIntervalSeconds: opts.pollingIntervalSeconds,
+    retryLimit: env.OUTBOX_RETRY_LIMIT, retryDelaySeconds: env.OUTBOX_RETRY_DELAY_SECONDS, pollingIntervalSeconds: opts.pollingIntervalSeconds, schedule: opts.mailWorker ?? true,
   });
   await outbox.start({ work: opts.mailWorker ?? true });
   const ctx: AppContext = { db, env, logger, outbox, reference: new ReferenceCache(db) };
@@ -37,6 +38,7 @@ export async function startApi(env: Env = loadEnv(), opts: { mailWorker?: boolea
     await startUsageJobs(ctx);
     await startBillingJobs(ctx);
     await startAuthJobs(ctx);
+    await startTrainingJobs(ctx);
   }
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {

@@ -32,6 +32,7 @@ import { estimatesRoutes } from './modules/estimates/estimates.routes';
 import { beamTimeRoutes } from './modules/beam-time/beam-time.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 import { instrumentAdminRoutes } from './modules/instruments/instrument-admin.routes';
+import { trainingRoutes } from './modules/training/training.routes';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -57,6 +58,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...instrumentAdminRoutes(ctx),
     ...estimatesRoutes(ctx),
     ...beamTimeRoutes(ctx),
+    ...trainingRoutes(ctx),
   ];
 }
 

@@ -8,3 +8,4 @@ export * from './engine';
 export * from './billing/billing.schemas';
 export * from './facility/instrument-admin.schemas';
 export * from './time/iso-schemas';
+export * from './training/training.schemas';

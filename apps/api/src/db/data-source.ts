@@ -68,3 +68,10 @@ import { RevokedSession } from '../modules/auth/revoked-session.entity';
 // Session-log bounds: the facility's window for actual times, a segment's spectral FWHM.
 import { SessionLogBounds1765400000000 } from './migrations/1765400000000-session-log-bounds';
 (migrations as unknown as (new () => object)[]).push(SessionLogBounds1765400000000);
+// Training courses, configuration requirements and sign-offs, the laser-safety officer flag.
+import { TrainingAuthorisation1765800000000 } from './migrations/1765800000000-training-authorisation';
+import { TrainingCourse } from '../modules/training/training-course.entity';
+import { ConfigurationRequirement } from '../modules/training/configuration-requirement.entity';
+import { ConfigurationSignoff } from '../modules/training/configuration-signoff.entity';
+(entities as unknown as (new () => object)[]).push(TrainingCourse, ConfigurationRequirement, ConfigurationSignoff);
+(migrations as unknown as (new () => object)[]).push(TrainingAuthorisation1765800000000);

@@ -5,10 +5,10 @@ import { ChangeoverPair } from '../modules/instruments/changeover-pair.entity';
 import { Configuration } from '../modules/instruments/configuration.entity';
 import { Instrument } from '../modules/instruments/instrument.entity';
 import { Organisation } from '../modules/organisations/organisation.entity';
-import { TrainingRecord } from '../modules/safety/training-record.entity';
 import { User } from '../modules/users/user.entity';
 import { hashPassword } from '../lib/auth/passwords';
 import { uniqueTag, type TestApi } from './test-api';
+import { giveLaserSafetyTraining } from './training';
 
 const PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | null = null;
@@ -44,7 +44,7 @@ export async function makeBooker(t: TestApi, opts: { role?: Role; kind?: Organis
   passwordHash ??= hashPassword(PASSWORD);
   const user = await db.getRepository(User).save({ email: `booker.${tag}@example.test`, name: `Booker ${tag}`, role: opts.role ?? (kind === 'internal' ? 'member' : 'collaborator'), organisationId: org.id, passwordHash: await passwordHash, active: true });
   const trained = opts.trained ?? true;
-  await db.getRepository(TrainingRecord).insert({ userId: user.id, course: 'Class 4 laser safety', completedOn: trained ? '2026-01-01' : '2023-01-01', expiresOn: trained ? '2028-01-01' : '2025-01-01' });
+  await giveLaserSafetyTraining(db, user.id, trained);
   const account: Account = await db.getRepository(Account).save<Account>(kind === 'internal'
     ? { organisationId: org.id, kind: 'cost_centre', name: `CC ${tag}`, costCentreCode: `CC-${tag}`, status: 'approved' } as Account
     : { organisationId: org.id, kind: 'external', name: `Ext ${tag}`, billingContactEmail: `ap.${tag}@example.test`, poNumber: `PO-${tag}`, poExpiresOn: '2028-12-31', status: 'approved' } as Account);

@@ -84,6 +84,9 @@ export const createRoutes = (queryClient: QueryClient): RouteObject[] => [
               areaRoute('beam-time', paths.myBeamTime, async () => ({
                 Component: (await import('./routes/beam-time/my-beam-time')).MyBeamTimePage,
               })),
+              areaRoute('training', paths.training, async () => ({
+                Component: (await import('./routes/training/training')).TrainingPage,
+              })),
             ],
           },
         ],

@@ -46,7 +46,7 @@ test('when an admin opens people, then the users table and their navigation show
   expect(el.querySelector('[data-testid="users-table"]')).toBeTruthy();
   expect(el.querySelectorAll('[data-testid="user-row"]').length).toBe(2);
   expect(el.querySelector('[data-testid="facility-name"]')?.textContent).toBe('Test Core');
-  expect([...el.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('data-testid'))).toEqual(['nav-calendar','nav-billing','nav-settings','nav-people','nav-sources','nav-beam-time']);
+  expect([...el.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('data-testid'))).toEqual(['nav-calendar','nav-billing','nav-settings','nav-people','nav-sources','nav-beam-time','nav-training']);
   expect(el.textContent).toContain('Invitation pending');
 });
 

@@ -5,7 +5,7 @@ import { paths } from './paths';
  * The one place that says which role reaches which area. The router guards and the
  * navigation both read it; browser tests may import it too (it has no DOM dependencies).
  */
-export const areas = ['calendar', 'sessions', 'billing', 'reports', 'settings', 'people', 'sources', 'beam-time'] as const;
+export const areas = ['calendar', 'sessions', 'billing', 'reports', 'settings', 'people', 'sources', 'beam-time', 'training'] as const;
 export type Area = (typeof areas)[number];
 
 export interface NavigationArea {
@@ -73,6 +73,13 @@ export const navigationAreas: readonly NavigationArea[] = [
     path: paths.myBeamTime,
     roles: ['collaborator', 'member', 'pi', 'staff', 'finance', 'admin'],
     testId: 'nav-beam-time',
+  },
+  {
+    area: 'training',
+    label: 'Training',
+    path: paths.training,
+    roles: ['collaborator', 'member', 'pi', 'staff', 'finance', 'admin'],
+    testId: 'nav-training',
   },
 ];
 

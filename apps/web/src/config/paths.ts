@@ -14,6 +14,7 @@ export const paths = {
   people: '/people',
   sources: '/sources',
   myBeamTime: '/beam-time',
+  training: '/training',
 } as const;
 
 export const sessionLogPath = (bookingId: string) => `/sessions/${encodeURIComponent(bookingId)}`;

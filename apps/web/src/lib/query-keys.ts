@@ -115,3 +115,12 @@ export const beamTimeKeys = {
   mine: () => [...beamTimeKeys.all, 'mine'] as const,
   spend: (query: { organisationId?: string; from?: string }) => [...beamTimeKeys.all, 'spend', query] as const,
 };
+
+export const trainingKeys = {
+  all: ['training'] as const,
+  me: () => [...trainingKeys.all, 'me'] as const,
+  courses: () => [...trainingKeys.all, 'courses'] as const,
+  requirements: () => [...trainingKeys.all, 'requirements'] as const,
+  people: (q: string) => [...trainingKeys.all, 'people', q] as const,
+  person: (id: string) => [...trainingKeys.all, 'person', id] as const,
+};

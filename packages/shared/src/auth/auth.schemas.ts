@@ -48,8 +48,8 @@ export const setPasswordInputSchema = z.object({
 export type SetPasswordInput = z.infer<typeof setPasswordInputSchema>;
 
 export const updateUserInputSchema = z
-  .object({ role: roleSchema.optional(), active: z.boolean().optional() })
-  .refine((v) => v.role !== undefined || v.active !== undefined, { message: 'Give a role or an active flag' });
+  .object({ role: roleSchema.optional(), active: z.boolean().optional(), laserSafetyOfficer: z.boolean().optional() })
+  .refine((v) => v.role !== undefined || v.active !== undefined || v.laserSafetyOfficer !== undefined, { message: 'Give a role, an active flag or the laser-safety officer flag' });
 export type UpdateUserInput = z.infer<typeof updateUserInputSchema>;
 
 export const organisationSchema = z.object({
@@ -68,6 +68,8 @@ export const userSchema = z.object({
   organisation: organisationSchema,
   createdAt: z.string(),
   invitationPending: z.boolean(),
+  /** Records and revokes training and sign-offs (a duty of a staff member or admin, not a role). */
+  laserSafetyOfficer: z.boolean(),
 });
 export type User = z.infer<typeof userSchema>;
 

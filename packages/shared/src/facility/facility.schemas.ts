@@ -45,6 +45,8 @@ export interface FacilityPolicies {
   usageGraceMinutes?: number;
   /** The pump's pulse-duration specification in fs, drawn on the pulse trend (none when unset). */
   pumpPulseSpecFs?: number | null;
+  /** Days before a training record or sign-off expires that its holder is reminded by e-mail (default 30). */
+  trainingReminderDays?: number;
 }
 
 /** A configuration as GET /api/configurations answers it. */

@@ -10,7 +10,6 @@ import { Configuration } from '../../modules/instruments/configuration.entity';
 import { Instrument } from '../../modules/instruments/instrument.entity';
 import { Organisation } from '../../modules/organisations/organisation.entity';
 import { EyewearItem } from '../../modules/safety/eyewear-item.entity';
-import { TrainingRecord } from '../../modules/safety/training-record.entity';
 import { TimelineBlock } from '../../modules/bookings/timeline-block.entity';
 import { User } from '../../modules/users/user.entity';
 import { UsageLog } from '../../modules/usage/usage-log.entity';
@@ -18,6 +17,7 @@ import { UsageSegment } from '../../modules/usage/usage-segment.entity';
 import { demoAccounts, demoEyewear, demoFacility, demoInstruments, demoOrganisations, demoPassword, demoUsers } from './demo-data';
 import { demoRateCard } from './demo-data';
 import { seedBilling } from '../../modules/billing/seed-billing';
+import { seedTraining } from './seed-training';
 
 const addDays = (isoDate: string, days: number) => {
   const d = new Date(`${isoDate}T12:00:00Z`);
@@ -38,6 +38,7 @@ export async function seedDemo(db: DataSource, now = new Date()): Promise<'seede
     await m.getRepository(FacilitySettings).insert({ id: 1, ...demoFacility });
     await seedPeople(m, now);
     await seedInstruments(m);
+    await seedTraining(m, localDate(now, demoFacility.timeZone));
     await seedTimeline(m, now);
     await seedUsageLogs(m);
     await seedBilling(m, now, demoRateCard);
@@ -54,9 +55,7 @@ async function seedPeople(m: EntityManager, now: Date): Promise<void> {
   const hash = await hashPassword(demoPassword);
   const today = localDate(now, demoFacility.timeZone);
   for (const u of demoUsers) {
-    const user = await m.getRepository(User).save({ email: u.email, name: u.name, role: u.role, organisationId: orgIds.get(u.org)!, passwordHash: hash, active: true });
-    const completedOn = u.trainingValid ? addDays(today, -200) : addDays(today, -800);
-    await m.getRepository(TrainingRecord).insert({ userId: user.id, course: 'Class 4 laser safety', completedOn, expiresOn: addDays(completedOn, 730) });
+    await m.getRepository(User).save({ email: u.email, name: u.name, role: u.role, organisationId: orgIds.get(u.org)!, passwordHash: hash, active: true });
   }
   const staff = await m.getRepository(User).findOneByOrFail({ email: 'staff@harrowpoint.test' });
   for (const a of demoAccounts) {

@@ -22,6 +22,8 @@ export interface OutboxOptions {
   retryLimit: number;
   retryDelaySeconds: number;
   pollingIntervalSeconds?: number;
+  /** Run pg-boss's cron clock in this process (working processes only); schedules fire once across all processes. */
+  schedule?: boolean;
 }
 
 /**
@@ -36,7 +38,7 @@ export class Outbox {
 
   constructor(private readonly db: DataSource, connectionString: string, private readonly transport: MailTransport,
     private readonly logger: Logger, private readonly options: OutboxOptions) {
-    this.boss = new PgBoss({ connectionString, max: 3, schedule: false, application_name: 'femtoslot-outbox' });
+    this.boss = new PgBoss({ connectionString, max: 3, schedule: options.schedule ?? false, application_name: 'femtoslot-outbox' });
     this.boss.on('error', (err) => this.logger.error({ err }, 'outbox queue error'));
   }
 
@@ -84,6 +86,12 @@ export class Outbox {
     if (this.queues.has(queue)) return;
     await this.boss.createQueue(queue).catch(() => undefined);
     this.queues.add(queue);
+  }
+
+  /** A recurring job (cron in the given IANA zone); re-declaring it at each start updates it in place. */
+  async schedule(queue: string, cron: string, tz: string, data: object = {}): Promise<void> {
+    await this.ensureQueue(queue);
+    await this.boss.schedule(queue, cron, data, { tz, ...JOB_RETRIES });
   }
 
   async work<T extends object>(queue: string, handler: (data: T) => Promise<void>): Promise<void> {

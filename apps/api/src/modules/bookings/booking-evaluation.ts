@@ -1,5 +1,5 @@
 import {
-  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, formatNm, localDate, type WavelengthCoverage,
+  checkTargetFeasibility, checkTimeline, describeCancellationPolicy, describeGaps, formatNm, localDate, type WavelengthCoverage,
   type BookingCheckDto, type BookingTarget, type TimelineCheck,
 } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
@@ -11,6 +11,7 @@ import type { Organisation } from '../organisations/organisation.entity';
 import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
 import { checkOptics } from './optics-check';
+import { authorisationFor, sessionDays } from '../training/authorisation';
 import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
@@ -48,17 +49,12 @@ export interface Evaluation {
 
 export type BookingAccount = Pick<Account, 'id' | 'organisationId' | 'kind' | 'name' | 'poNumber' | 'poExpiresOn' | 'status'>;
 
-/** The account and whether the owner holds training valid on `onDate`, in one statement (booking creation is hot). */
-async function accountAndTraining(m: EntityManager, accountId: string, userId: string, onDate: string): Promise<{ account: BookingAccount | null; trained: boolean }> {
-  const rows: { trained: boolean; id: string | null; organisation_id: string; kind: Account['kind']; name: string; po_number: string | null; po_expires_on: string | null; status: Account['status'] }[] = await m.query(
-    `SELECT EXISTS (SELECT 1 FROM training_records t WHERE t.user_id = $2 AND t.completed_on <= $3 AND t.expires_on >= $3) AS trained,
-            a.id, a.organisation_id, a.kind, a.name, a.po_number, a.po_expires_on::text AS po_expires_on, a.status
-       FROM (SELECT 1) AS one LEFT JOIN accounts a ON a.id = $1`, [accountId, userId, onDate]);
-  const r = rows[0]!;
-  return {
-    trained: r.trained,
-    account: r.id ? { id: r.id, organisationId: r.organisation_id, kind: r.kind, name: r.name, poNumber: r.po_number, poExpiresOn: r.po_expires_on, status: r.status } : null,
-  };
+/** The account the booking would be charged to (one plain statement: booking creation is hot). */
+async function accountOf(m: EntityManager, accountId: string): Promise<BookingAccount | null> {
+  const rows: { id: string; organisation_id: string; kind: Account['kind']; name: string; po_number: string | null; po_expires_on: string | null; status: Account['status'] }[] = await m.query(
+    `SELECT a.id, a.organisation_id, a.kind, a.name, a.po_number, a.po_expires_on::text AS po_expires_on, a.status FROM accounts a WHERE a.id = $1`, [accountId]);
+  const r = rows[0];
+  return r ? { id: r.id, organisationId: r.organisation_id, kind: r.kind, name: r.name, poNumber: r.po_number, poExpiresOn: r.po_expires_on, status: r.status } : null;
 }
 
 const HOUR = 3_600_000;
@@ -79,7 +75,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   if (!bookingRoles.has(req.owner.role)) problems.push({ code: 'forbidden', message: `As ${req.owner.role} you cannot book beam time`, status: 403 });
 
   const sessionDate = localDate(req.startsAt, facility.timeZone);
-  const { account, trained } = await accountAndTraining(m, req.accountId, req.owner.id, localDate(req.endsAt, facility.timeZone));
+  const account = await accountOf(m, req.accountId);
   if (!account || account.organisationId !== req.owner.organisationId) {
     problems.push({ code: 'account_unusable', message: 'That account does not belong to your organisation', status: 422 });
   } else if (account.status !== 'approved') {
@@ -111,7 +107,16 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     for (const r of feasibility.reasons) problems.push({ code: 'out_of_range', message: r.message, status: 422, details: { reason: r.code, minNm: configuration.minNm, maxNm: configuration.maxNm, ...r.details } });
   }
 
-  if (!trained) problems.push({ code: 'training_expired', message: `${req.owner.name} has no laser-safety training valid on ${sessionDate}; renew it with the laser-safety officer before booking`, status: 422 });
+  if (configuration) {
+    const authorisation = await authorisationFor(m, req.owner.id, configuration.id, sessionDays(req.startsAt, req.endsAt, facility.timeZone));
+    if (!authorisation.ok) {
+      const on = authorisation.from === authorisation.to ? `on ${authorisation.from}` : `from ${authorisation.from} to ${authorisation.to}`;
+      problems.push({
+        code: 'training_required', status: 422, details: { configurationId: configuration.id, from: authorisation.from, to: authorisation.to, gaps: authorisation.gaps },
+        message: `For ${configuration.name} ${on}, ${req.owner.name} lacks: ${describeGaps(authorisation.gaps)}. The laser-safety officer records training and sign-offs.`,
+      });
+    }
+  }
 
   let eyewear: EyewearItem[] = [];
   let odByWavelength: BookingCheckDto['odByWavelength'] = [];
@@ -185,7 +190,7 @@ function noEyewearProblem(wavelengths: WavelengthCoverage<EyewearItem>[]): Probl
 
 /** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */
 export function throwFirst(problems: Problem[]): void {
-  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'training_expired', 'no_eyewear', 'overlap', 'changeover_gap'];
+  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'training_required', 'no_eyewear', 'overlap', 'changeover_gap'];
   const first = [...problems].sort((a, b) => order.indexOf(a.code) - order.indexOf(b.code))[0];
   if (first) throw new AppError(first.code, first.message, first.status, first.details);
 }

@@ -12,5 +12,6 @@ export function toUserDto(u: User): UserDto {
     organisation: { id: u.organisation.id, name: u.organisation.name, kind: u.organisation.kind },
     createdAt: u.createdAt.toISOString(),
     invitationPending: !u.passwordHash,
+    laserSafetyOfficer: u.isLaserSafetyOfficer,
   };
 }

@@ -17,5 +17,7 @@ export class User {
   @Column({ name: 'calendar_token', type: 'text', nullable: true }) calendarToken: string | null;
   /** Carried in the session token; a password reset raises it, which ends every older session. */
   @Column({ name: 'session_epoch', type: 'integer', default: 0 }) sessionEpoch: number;
+  /** May record and revoke training and sign-offs; only staff or admin hold it (users_lso_is_staff). */
+  @Column({ name: 'is_laser_safety_officer', type: 'boolean', default: false }) isLaserSafetyOfficer: boolean;
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' }) createdAt: Date;
 }

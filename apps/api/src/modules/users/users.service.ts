@@ -10,7 +10,7 @@ import { FacilitySettings } from '../facility/facility-settings.entity';
 import { Organisation } from '../organisations/organisation.entity';
 import { User } from './user.entity';
 
-const snapshot = (u: User) => ({ role: u.role, active: u.active, email: u.email, organisationId: u.organisationId });
+const snapshot = (u: User) => ({ role: u.role, active: u.active, email: u.email, organisationId: u.organisationId, laserSafetyOfficer: u.isLaserSafetyOfficer });
 
 export function usersService(ctx: AppContext) {
   async function list(): Promise<User[]> {
@@ -52,7 +52,14 @@ export function usersService(ctx: AppContext) {
       const user = await repo.findOne({ where: { id }, lock: { mode: 'pessimistic_write', tables: ['users'] } });
       if (!user) throw notFound('User');
       const before = snapshot(user);
-      await repo.update({ id }, { ...(input.role ? { role: input.role } : {}), ...(input.active !== undefined ? { active: input.active } : {}) });
+      const role = input.role ?? user.role;
+      const officer = input.laserSafetyOfficer ?? user.isLaserSafetyOfficer;
+      // The laser-safety officer duty sits on staff or admin only (users_lso_is_staff); moving to another role ends it.
+      if (input.laserSafetyOfficer && !['staff', 'admin'].includes(role)) throw new AppError('rule_violation', 'Only staff or an admin can be named laser-safety officer', 422);
+      await repo.update({ id }, {
+        ...(input.role ? { role: input.role } : {}), ...(input.active !== undefined ? { active: input.active } : {}),
+        isLaserSafetyOfficer: officer && ['staff', 'admin'].includes(role),
+      });
       const after = await repo.findOneOrFail({ where: { id } });
       await recordAudit(m, { actorUserId: actor.id, action: 'user.updated', entityType: 'user', entityId: id, before, after: snapshot(after), requestId });
       return after;

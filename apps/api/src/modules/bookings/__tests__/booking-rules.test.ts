@@ -96,12 +96,13 @@ describe('booking beam time', () => {
     expect(r.body.error.details).toMatchObject({ minNm: 1150, maxNm: 1600 });
   });
 
-  it('when the booker’s training has expired, then 422 training_expired', async () => {
+  it('when the booker’s training has expired, then 422 training_required naming the course and its expiry', async () => {
     const { instrument, configs } = await makeInstrument(t);
     const me = await makeBooker(t, { trained: false });
     const r = await me.agent.post('/api/bookings').send(body(instrument.id, configs.fundamental!.id, me.account.id, hoursFromNow(30), 2));
     expect(r.status).toBe(422);
-    expect(r.body.error.code).toBe('training_expired');
+    expect(r.body.error.code).toBe('training_required');
+    expect(r.body.error.details.gaps).toEqual([expect.objectContaining({ kind: 'course', name: 'Class 4 laser safety', reason: 'expired', expiredOn: '2025-01-01' })]);
   });
 
   it('when no eyewear covers the table at the required OD, then 422 no_eyewear and the check says so too', async () => {

@@ -1,4 +1,6 @@
-import type { BookingCheckDto, PickerUnit, TableRole } from '@femtoslot/shared';
+import { type AuthorisationGap, type BookingCheckDto, type PickerUnit, type TableRole, describeGaps } from '@femtoslot/shared';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths';
 import { LaserCaution } from '../../../components/ui/laser-caution';
 import { Notice } from '../../../components/ui/notice';
 import { bandText, roleLabels } from './request-check-panel';
@@ -38,6 +40,7 @@ function OdByWavelength({ rows, unit }: { rows: BookingCheckDto['odByWavelength'
 export function SafetyStep({ check, unit }: { check: BookingCheckDto | undefined; unit: PickerUnit }) {
   const wavelengths = check ? check.onTable.flatMap((band) => (band.minNm === band.maxNm ? [band.minNm] : [band.minNm, band.maxNm])) : [];
   const noneCovers = check !== undefined && check.onTable.length > 0 && check.eyewear.length === 0;
+  const training = check?.problems.find((p) => p.code === 'training_required')?.details as { gaps: AuthorisationGap[] } | undefined;
   return (
     <div className="space-y-3">
       <LaserCaution wavelengthsNm={wavelengths} />
@@ -57,6 +60,14 @@ export function SafetyStep({ check, unit }: { check: BookingCheckDto | undefined
             instructions and local rules.
           </p>
         </div>
+      )}
+      {training && (
+        <Notice tone="danger" testId="training-missing" title="You are not yet cleared for this configuration on that date">
+          <ul className="list-disc pl-5">
+            {training.gaps.map((g) => <li key={`${g.kind}-${g.name}`}>{describeGaps([g])}</li>)}
+          </ul>
+          <p className="mt-1.5">The laser-safety officer records training and sign-offs. <Link className="font-semibold underline" to={paths.training}>See your training</Link></p>
+        </Notice>
       )}
       {noneCovers && (
         <Notice tone="danger" testId="no-eyewear" title="This request cannot be sent yet">

@@ -59,3 +59,30 @@ export function ActiveToggle({ user, disabled }: { user: User; disabled?: boolea
     </Button>
   );
 }
+
+/** The laser-safety officer duty: staff or admin only; the officer records and revokes training and sign-offs. */
+export function OfficerToggle({ user }: { user: User }) {
+  const update = useUpdateUser();
+  if (user.role !== 'staff' && user.role !== 'admin') return <span className="text-xs text-ink-muted">—</span>;
+  return (
+    <label className="inline-flex items-center gap-2 text-sm">
+      <input
+        type="checkbox"
+        data-testid="user-officer-toggle"
+        checked={user.laserSafetyOfficer}
+        disabled={update.isPending}
+        onChange={(event) =>
+          update.mutate(
+            { id: user.id, changes: { laserSafetyOfficer: event.target.checked } },
+            {
+              onSuccess: ({ user: saved }) =>
+                toast.success(saved.laserSafetyOfficer ? `${saved.name} is now a laser-safety officer` : `${saved.name} is no longer a laser-safety officer`),
+              onError: (error) => toast.error(error.message),
+            },
+          )
+        }
+      />
+      <span className="sr-only">Laser-safety officer: {user.name}</span>
+    </label>
+  );
+}

@@ -12,7 +12,7 @@ import { useMemo, useState } from 'react';
 import { TableShell } from '../../../components/ui/table-shell';
 import { roleLabels } from '../../../config/roles';
 import { cx } from '../../../lib/cx';
-import { ActiveToggle, RoleSelect } from './user-row-actions';
+import { ActiveToggle, OfficerToggle, RoleSelect } from './user-row-actions';
 import { UserStatusBadge, userStatus, userStatusLabels } from './user-status';
 
 export interface UsersTableProps {
@@ -34,6 +34,13 @@ function buildColumns(currentUserId: string, timeZone?: string): ColumnDef<User>
       cell: ({ row }) => <RoleSelect user={row.original} disabled={row.original.id === currentUserId} />,
     },
     { id: 'organisation', header: 'Organisation', accessorFn: (user) => user.organisation.name },
+    {
+      id: 'laserSafetyOfficer',
+      header: 'Laser-safety officer',
+      enableGlobalFilter: false,
+      accessorFn: (user) => (user.laserSafetyOfficer ? 1 : 0),
+      cell: ({ row }) => <OfficerToggle user={row.original} />,
+    },
     {
       id: 'status',
       header: 'Status',
