@@ -141,7 +141,11 @@ export interface BookingCheckDto {
   onTable: { role: string; minNm: number; maxNm: number }[];
   requiredOd: number;
   eyewear: { id: string; label: string }[];
-  timeline: { before: NeighbourCheckDto | null; after: NeighbourCheckDto | null; overlaps: string[]; earliestStart: string | null };
+  timeline: {
+    before: NeighbourCheckDto | null; after: NeighbourCheckDto | null; overlaps: string[]; earliestStart: string | null;
+    /** whether one of the overlapped blocks is a maintenance window */
+    overlapsMaintenance?: boolean;
+  };
   status: 'requested' | 'approved';
   cancellationPolicy: string;
 }
