@@ -23,3 +23,4 @@ export { seededRandom } from './planner/seeded-random';
 export * from './metrology/autocorrelation';
 export * from './metrology/time-bandwidth';
 export * from './metrology/autocorrelation-csv';
+export * from './timeline/offer-slots';

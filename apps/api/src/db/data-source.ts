@@ -53,3 +53,7 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// Facility working hours (offers to displaced bookings prefer them).
+import { FacilityWorkingHours1765600000000 } from './migrations/1765600000000-facility-working-hours';
+(migrations as unknown as (new () => object)[]).push(FacilityWorkingHours1765600000000);

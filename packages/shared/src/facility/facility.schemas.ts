@@ -34,6 +34,8 @@ export interface FacilityPolicies {
   usageGraceMinutes?: number;
   /** The pump's pulse-duration specification in fs, drawn on the pulse trend (none when unset). */
   pumpPulseSpecFs?: number | null;
+  /** Staffed hours in the facility zone, preferred for slots offered to displaced bookings (default 08:00–18:00, Mon–Fri). */
+  workingHours?: { start: string; end: string; weekdays: number[] };
 }
 
 /** A configuration as GET /api/configurations answers it. */
