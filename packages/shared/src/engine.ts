@@ -24,3 +24,4 @@ export * from './metrology/autocorrelation';
 export * from './metrology/time-bandwidth';
 export * from './metrology/autocorrelation-csv';
 export * from './metrology/pulse-limits';
+export * from './timeline/offer-slots';

@@ -75,3 +75,6 @@ import { ConfigurationRequirement } from '../modules/training/configuration-requ
 import { ConfigurationSignoff } from '../modules/training/configuration-signoff.entity';
 (entities as unknown as (new () => object)[]).push(TrainingCourse, ConfigurationRequirement, ConfigurationSignoff);
 (migrations as unknown as (new () => object)[]).push(TrainingAuthorisation1765800000000);
+// Facility working hours (offers to displaced bookings prefer them).
+import { FacilityWorkingHours1765600000000 } from './migrations/1765600000000-facility-working-hours';
+(migrations as unknown as (new () => object)[]).push(FacilityWorkingHours1765600000000);

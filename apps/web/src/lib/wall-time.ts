@@ -1,3 +1,4 @@
+import { formatZonedInstant } from '@femtoslot/shared/time/format-instant';
 import { type ResolvedWallTime, resolveWallTime, wallTimeAt } from '@femtoslot/shared/time/zoned-time';
 
 /** A wall-clock date and time as the form holds them: 'YYYY-MM-DD' and 'HH:MM'. */
@@ -72,19 +73,7 @@ export function formatMinutes(minutes: number): string {
 }
 
 /** Date and time of an instant in a zone, for people: "Tue 3 Mar 2026, 14:00". */
-export function formatInstant(instant: Date | string, timeZone: string, withZone = false): string {
-  return new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    weekday: 'short',
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    hour: '2-digit',
-    minute: '2-digit',
-    hourCycle: 'h23',
-    ...(withZone ? { timeZoneName: 'short' } : {}),
-  }).format(new Date(instant));
-}
+export const formatInstant = formatZonedInstant;
 
 /** The viewer's own zone, as the browser reports it (Intl resolvedOptions). */
 export function viewerTimeZone(): string {

@@ -146,7 +146,11 @@ export interface BookingCheckDto {
   odByWavelength: { role: string; minNm: number; maxNm: number; requiredOd: number | null; eyewear: { id: string; label: string }[] }[];
   /** The eyewear rated for every wavelength on the table. */
   eyewear: { id: string; label: string }[];
-  timeline: { before: NeighbourCheckDto | null; after: NeighbourCheckDto | null; overlaps: string[]; earliestStart: string | null };
+  timeline: {
+    before: NeighbourCheckDto | null; after: NeighbourCheckDto | null; overlaps: string[]; earliestStart: string | null;
+    /** whether one of the overlapped blocks is a maintenance window */
+    overlapsMaintenance?: boolean;
+  };
   status: 'requested' | 'approved';
   cancellationPolicy: string;
 }

@@ -47,6 +47,8 @@ export interface FacilityPolicies {
   pumpPulseSpecFs?: number | null;
   /** Days before a training record or sign-off expires that its holder is reminded by e-mail (default 30). */
   trainingReminderDays?: number;
+  /** Staffed hours in the facility zone, preferred for slots offered to displaced bookings (default 08:00–18:00, Mon–Fri). */
+  workingHours?: { start: string; end: string; weekdays: number[] };
 }
 
 /** A configuration as GET /api/configurations answers it. */

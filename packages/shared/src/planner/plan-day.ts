@@ -2,7 +2,8 @@ import { parseEngineInput } from '../units/engine-error';
 import { solveExact } from './exact-planner';
 import { firstComeEvaluation } from './first-come';
 import { solveHeuristic } from './heuristic-planner';
-import { buildProblem, decodeSequence, fitsAlone, type Placement, type PlanProblem } from './plan-problem';
+import { currentSequence, settleTowardsCurrent } from './current-day';
+import { buildProblem, decodeSequence, fitsAlone, isBetter, type Placement, type PlanProblem } from './plan-problem';
 import {
   planDayInputSchema,
   planDayOptionsSchema,
@@ -31,7 +32,9 @@ function roundMinutes(value: number): number {
 
 /**
  * Orders a day's requests around the fixed blocks: as many placed as possible, then the least
- * changeover. Exact up to options.exactLimit requests (default 10), heuristic beyond.
+ * changeover. Exact up to options.exactLimit requests (default 10), heuristic beyond. When every request
+ * has a current start, the day as it stands is kept unless the plan strictly beats it, and the chosen
+ * order is placed as near the current starts as it allows.
  */
 export function planDay(input: PlanDayInput, options: PlanDayOptions = {}): DayPlan {
   const parsed = parseEngineInput(planDayInputSchema, input);
@@ -40,9 +43,14 @@ export function planDay(input: PlanDayInput, options: PlanDayOptions = {}): DayP
   const exact = problem.n <= settings.exactLimit;
   const rounds = settings.searchRounds ?? (problem.n <= 20 ? 40 : 16);
   const solution = exact ? solveExact(problem) : solveHeuristic(problem, settings.seed, rounds);
+  const currentStarts = parsed.requests.map((r) => (r.currentStart ? (r.currentStart.getTime() - problem.dayStartMs) / MS_PER_MINUTE : null));
+  const asItStands = currentSequence(problem, currentStarts);
+  const current = asItStands ? decodeSequence(problem, asItStands) : null;
+  const sequence = asItStands && current && !isBetter(decodeSequence(problem, solution.sequence), current) ? asItStands : solution.sequence;
 
   const placements: Placement[] = [];
-  const value = decodeSequence(problem, solution.sequence, placements);
+  const value = decodeSequence(problem, sequence, placements);
+  if (asItStands) settleTowardsCurrent(problem, placements, currentStarts);
   const placedIds = new Set(placements.map((p) => p.index));
   const firstCome = firstComeEvaluation(problem, parsed.model, parsed.initialState ?? null);
   const toDate = (minutes: number) => new Date(problem.dayStartMs + minutes * MS_PER_MINUTE);
@@ -59,7 +67,8 @@ export function planDay(input: PlanDayInput, options: PlanDayOptions = {}): DayP
       .filter(({ i }) => !placedIds.has(i))
       .map(({ r, i }) => ({ id: r.id, ...unplacedReason(problem, i) })),
     changeoverMinutes: roundMinutes(value.cost),
-    savedMinutes: roundMinutes(firstCome.cost - value.cost),
+    savedMinutes: roundMinutes((current ? current.cost : firstCome.cost) - value.cost),
+    currentChangeoverMinutes: current ? roundMinutes(current.cost) : null,
     firstCome: { placedCount: firstCome.placed, changeoverMinutes: roundMinutes(firstCome.cost) },
     provenOptimal: exact,
     method: exact ? 'exact' : 'heuristic',

@@ -8,6 +8,8 @@ export const planRequestInputSchema = z.object({
   state: sourceStateSchema,
   earliestStart: instantInputSchema.optional(),
   latestEnd: instantInputSchema.optional(),
+  /** Where the booking sits now; given for every request, the plan moves nothing unless that saves changeover. */
+  currentStart: instantInputSchema.optional(),
   submittedAt: instantInputSchema,
 });
 export type PlanRequestInput = z.input<typeof planRequestInputSchema>;
@@ -54,8 +56,13 @@ export interface DayPlan {
   unplaced: Array<{ id: string; reason: UnplacedReason; message: string }>;
   /** Every changeover of the day's timeline, fixed blocks included. */
   changeoverMinutes: number;
-  /** First-come changeover minus this plan's; negative when the plan fits more requests in. */
+  /**
+   * The current timeline's changeover minus this plan's when every request has a current start, else first-come's
+   * minus this plan's; negative when the plan fits more requests in.
+   */
   savedMinutes: number;
+  /** Changeover of the day as it stands (null unless every request has a current start). */
+  currentChangeoverMinutes: number | null;
   firstCome: { placedCount: number; changeoverMinutes: number };
   provenOptimal: boolean;
   method: 'exact' | 'heuristic';

@@ -32,7 +32,7 @@ export interface TimeSlot {
   end: Date;
 }
 
-interface Interval {
+export interface Interval {
   id: string;
   kind: TimelineBlock['kind'];
   start: number;
@@ -52,7 +52,7 @@ export function minutesNeededBeforeBlock(previous: SourceState, block: Pick<Inte
   return changeoverFor(previous, block.state, model, false).totalMinutes;
 }
 
-function toIntervals(blocks: TimelineBlock[], excludeId: string | undefined): Interval[] {
+export function toIntervals(blocks: TimelineBlock[], excludeId: string | undefined): Interval[] {
   return blocks
     .filter((b) => b.id !== excludeId)
     .map((b) => {

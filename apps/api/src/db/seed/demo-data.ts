@@ -18,6 +18,7 @@ export const demoFacility = {
     usageGraceMinutes: 30,
     // Invented demo specification of the amplifier's pulse duration.
     pumpPulseSpecFs: 45,
+    workingHours: { start: '08:00', end: '18:00', weekdays: [1, 2, 3, 4, 5] },
   },
 };
 

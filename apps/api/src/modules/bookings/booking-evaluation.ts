@@ -2,6 +2,7 @@ import {
   checkTargetFeasibility, checkTimeline, describeCancellationPolicy, describeGaps, formatNm, localDate, type WavelengthCoverage,
   type BookingCheckDto, type BookingTarget, type TimelineCheck,
 } from '@femtoslot/shared';
+import { describeInstant } from '@femtoslot/shared/time/format-instant';
 import type { EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import { AppError, notFound } from '../../lib/errors/app-error';
@@ -58,7 +59,6 @@ async function accountOf(m: EntityManager, accountId: string): Promise<BookingAc
 }
 
 const HOUR = 3_600_000;
-const fmt = (d: Date) => d.toISOString().replace(':00.000Z', 'Z');
 
 /** Every rule a booking must pass, gathered (not thrown) so the request form can show them all at once. */
 export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, req: BookingRequest, opts: { lock: boolean; now?: Date; skipPolicy?: boolean }): Promise<Evaluation> {
@@ -128,11 +128,13 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   }
 
   let check: TimelineCheck | null = null;
+  const overlapKinds = new Set<string>();
   if (configuration && feasibility?.feasible && req.endsAt > req.startsAt) {
     const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
     const blocks = await occupyingBlocks(m, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR), req.instrumentId);
     const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
     check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.parsedModel, horizonEnd });
+    for (const id of check.overlaps) overlapKinds.add(blocks.find((b) => b.id === id)?.kind ?? 'booking');
     const details = {
       neededMinutes: Math.max(check.before?.neededMinutes ?? 0, check.after?.neededMinutes ?? 0),
       availableMinutes: Math.min(check.before?.availableMinutes ?? Infinity, check.after?.availableMinutes ?? Infinity),
@@ -140,7 +142,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
       before: check.before, after: check.after,
     };
     if (!Number.isFinite(details.availableMinutes)) details.availableMinutes = 0;
-    const suggestion = check.earliestStart ? ` The earliest start that works is ${fmt(check.earliestStart)}.` : ' No later start within the booking horizon works.';
+    const suggestion = check.earliestStart ? ` The earliest start that works is ${describeInstant(check.earliestStart, facility.timeZone)}.` : ' No later start within the booking horizon works.';
     if (check.overlaps.length > 0) {
       problems.push({ code: 'overlap', message: `That time overlaps another booking or a maintenance window.${suggestion}`, status: 409, details: { ...details, overlaps: check.overlaps } });
     } else {
@@ -167,6 +169,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     timeline: {
       before: check?.before ?? null, after: check?.after ?? null, overlaps: check?.overlaps ?? [],
       earliestStart: check?.earliestStart?.toISOString() ?? null,
+      overlapsMaintenance: overlapKinds.has('maintenance'),
     },
     status,
     cancellationPolicy: describeCancellationPolicy(p),

@@ -102,15 +102,24 @@ export function bookingsService(ctx: AppContext) {
         }
       }
       const t = input.target;
+      const targetMinNm = 'targetNm' in t ? t.targetNm : t.minNm;
+      const targetMaxNm = 'targetNm' in t ? t.targetNm : t.maxNm;
+      // An approved booking displaced by maintenance and rebooked into one of the slots offered for it, unchanged
+      // otherwise, keeps its approval: staff already reviewed that session, and the facility moved it.
+      const keepsApproval = !!rebookOf?.decidedBy && rebookOf.configurationId === input.configurationId && rebookOf.accountId === input.accountId
+        && rebookOf.targetMinNm === targetMinNm && rebookOf.targetMaxNm === targetMaxNm
+        && rebookOf.alternatives.some((a) => Date.parse(a.startsAt) === Date.parse(input.startsAt) && Date.parse(a.endsAt) === Date.parse(input.endsAt));
+      const status = keepsApproval ? 'approved' : e.status;
       const saved = await insertBooking(m, {
-        instrumentId: input.instrumentId, status: e.status, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
-        configurationId: input.configurationId, targetMinNm: 'targetNm' in t ? t.targetNm : t.minNm, targetMaxNm: 'targetNm' in t ? t.targetNm : t.maxNm,
+        instrumentId: input.instrumentId, status, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
+        configurationId: input.configurationId, targetMinNm, targetMaxNm,
         accountId: input.accountId, userId: actor.id, organisationId: actor.organisationId, purpose: input.purpose, createdBy: actor.id,
-        decidedBy: e.status === 'approved' ? actor.id : null, decidedAt: e.status === 'approved' ? new Date() : null,
+        decidedBy: keepsApproval ? rebookOf!.decidedBy : e.status === 'approved' ? actor.id : null,
+        decidedAt: keepsApproval ? rebookOf!.decidedAt : e.status === 'approved' ? new Date() : null,
       });
       if (rebookOf) await m.getRepository(TimelineBlock).update({ id: rebookOf.id }, { rebookedAs: saved.id });
-      await recordAudit(m, { actorUserId: actor.id, action: `booking.${e.status}`, entityType: 'booking', entityId: saved.id, after: auditSnapshot(saved), requestId });
-      await queueBookingMail(ctx, m, e.status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, reference: e.reference, jobs: reminderJobs(saved) });
+      await recordAudit(m, { actorUserId: actor.id, action: `booking.${status}`, entityType: 'booking', entityId: saved.id, after: { ...auditSnapshot(saved), ...(keepsApproval ? { rebookOf: rebookOf!.id, note: 'approval kept: rebooked into an offered slot' } : {}) }, requestId });
+      await queueBookingMail(ctx, m, status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, reference: e.reference, jobs: reminderJobs(saved) });
       // Every name the answer shows is already at hand: no lookups.
       const look = lookupsOf(e.reference, new Map([[actor.id, actor.name]]), new Map(e.account ? [[e.account.id, e.account.name]] : []));
       return {

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { findAlternativeSlots, type MaintenanceInput } from '@femtoslot/shared';
+import type { MaintenanceInput } from '@femtoslot/shared';
 import { In, LessThan, MoreThan, Not, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
@@ -9,20 +9,18 @@ import { queueBookingMail } from '../bookings/booking-mail';
 import { auditSnapshot, toBookingDto, toMaintenanceDto } from '../bookings/booking.dto';
 import { loadLookups } from '../bookings/lookups';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
-
-const DAY = 86_400_000;
+import { timelineOf } from '../bookings/timeline.repository';
+import { findOffers, warmupConflictAfter, type WarmupConflict } from './maintenance-offers';
 
 export function maintenanceService(ctx: AppContext) {
   /**
-   * Marks every active booking the window covers — or that starts inside the warm-up after it — as displaced, in the
-   * caller's transaction, and offers each owner three free slots of the same length and configuration.
+   * Marks every active booking whose own interval overlaps the window as displaced, in the caller's transaction. A
+   * booking that only starts inside the warm-up after the window is not displaced: see warmupConflictAfter.
    */
   async function displaceUnder(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; startsAt: Date; endsAt: Date; reason: string }, requestId?: string) {
     const { timeline } = await timelineOf(ctx.reference, m, window.instrumentId, { lock: true });
-    const warmupEnd = new Date(window.endsAt.getTime() + timeline.model.warmupAfterMaintenanceMinutes * 60_000);
     const victims = await m.getRepository(TimelineBlock).find({
-      where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(warmupEnd), endsAt: MoreThan(window.startsAt) },
+      where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(window.endsAt), endsAt: MoreThan(window.startsAt) },
       order: { startsAt: 'ASC' },
       lock: { mode: 'pessimistic_write' },
     });
@@ -41,21 +39,20 @@ export function maintenanceService(ctx: AppContext) {
   }
 
   async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
-    if (victims.length === 0) return;
-    const { timeline, reference: { facility } } = await timelineOf(ctx.reference, m, instrumentId);
-    const now = Date.now();
-    const horizonEnd = new Date(now + facility.policies.horizonDays * DAY);
-    const blocks = toEngineBlocks(await occupyingBlocks(m, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY), instrumentId), timeline.configurations);
+    const offers = await findOffers(ctx, m, victims, instrumentId);
     for (const v of victims) {
-      const state = stateOf(v, timeline.configurations);
-      const duration = v.endsAt.getTime() - v.startsAt.getTime();
-      // Start looking from the original slot (or from now plus the external lead time, if that is later).
-      const from = Math.max(v.startsAt.getTime(), now + facility.policies.externalLeadHours * 3_600_000);
-      const slots = state ? findAlternativeSlots(blocks, { start: new Date(from), end: new Date(from + duration), state }, { model: timeline.model, count: 3, horizonEnd, stepMinutes: 120 }) : [];
-      v.alternatives = slots.map((s) => ({ startsAt: s.start.toISOString(), endsAt: s.end.toISOString() }));
+      v.alternatives = offers.get(v.id) ?? [];
       await m.getRepository(TimelineBlock).update({ id: v.id }, { alternatives: v.alternatives });
       await queueBookingMail(ctx, m, 'displaced', v, { reason });
     }
+  }
+
+  /** Flags (audit + answer) the booking after the window whose warm-up the window now cuts short. */
+  async function flagWarmup(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; endsAt: Date }, requestId?: string): Promise<WarmupConflict[]> {
+    const found = await warmupConflictAfter(m, ctx, window);
+    if (!found) return [];
+    await recordAudit(m, { actorUserId: actor.id, action: 'booking.warmup_conflict', entityType: 'booking', entityId: found.block.id, after: { ...found.conflict, maintenanceId: window.id }, requestId });
+    return [found.conflict];
   }
 
   async function create(actor: SessionUser, input: MaintenanceInput, requestId?: string) {
@@ -66,8 +63,9 @@ export function maintenanceService(ctx: AppContext) {
       await linkVictims(m, victims, saved.id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.scheduled', entityType: 'maintenance', entityId: saved.id, after: auditSnapshot(saved), requestId });
       await offerAlternatives(m, victims, window.instrumentId, input.reason);
+      const warmupConflicts = await flagWarmup(m, actor, saved, requestId);
       const look = await loadLookups(m, victims);
-      return { maintenance: toMaintenanceDto(saved), displaced: victims.map((v) => toBookingDto(v, actor, look)) };
+      return { maintenance: toMaintenanceDto(saved), displaced: victims.map((v) => toBookingDto(v, actor, look)), warmupConflicts };
     });
   }
 
@@ -83,8 +81,9 @@ export function maintenanceService(ctx: AppContext) {
       await linkVictims(m, victims, id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.updated', entityType: 'maintenance', entityId: id, before, after: auditSnapshot(w), requestId });
       await offerAlternatives(m, victims, w.instrumentId, next.reason);
+      const warmupConflicts = await flagWarmup(m, actor, w, requestId);
       const look = await loadLookups(m, victims);
-      return { maintenance: toMaintenanceDto(w), displaced: victims.map((v) => toBookingDto(v, actor, look)) };
+      return { maintenance: toMaintenanceDto(w), displaced: victims.map((v) => toBookingDto(v, actor, look)), warmupConflicts };
     });
   }
 

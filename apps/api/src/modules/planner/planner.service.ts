@@ -1,4 +1,4 @@
-import { checkTimeline, planDay, zonedToUtc, type DayPlan } from '@femtoslot/shared';
+import { checkTimeline, planDay, zonedToUtc, type DayPlan, type FacilityPolicies } from '@femtoslot/shared';
 import { In } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
@@ -26,6 +26,7 @@ const planDto = (plan: DayPlan) => ({
   method: plan.method,
   changeoverMinutes: plan.changeoverMinutes,
   savedMinutes: plan.savedMinutes,
+  currentChangeoverMinutes: plan.currentChangeoverMinutes,
   firstComeChangeoverMinutes: plan.firstCome.changeoverMinutes,
   firstComePlacedCount: plan.firstCome.placedCount,
   order: plan.order.map((o) => ({ bookingId: o.id, startsAt: o.start.toISOString(), endsAt: o.end.toISOString(), changeoverBeforeMinutes: o.changeoverBeforeMinutes })),
@@ -68,16 +69,32 @@ export function plannerService(ctx: AppContext) {
     const requests = movable.map((b) => ({
       id: b.id, durationMinutes: (b.endsAt.getTime() - b.startsAt.getTime()) / 60_000, state: stateOf(b, t.configurations)!,
       earliestStart: new Date(Math.max(b.startsAt.getTime() - flex, dayStart.getTime(), now)), latestEnd: new Date(Math.min(b.endsAt.getTime() + flex, dayEnd.getTime())),
+      currentStart: b.startsAt,
       submittedAt: b.createdAt,
     }));
     const plan = planDay({ dayStart, dayEnd, fixedBlocks: toEngineBlocks(fixed, t.configurations), requests, model: t.model });
     return { ...planDto(plan), current: movable.map((b) => ({ bookingId: b.id, startsAt: b.startsAt.toISOString(), endsAt: b.endsAt.toISOString() })) };
   }
 
+  /**
+   * A plan may only move a booking within the day it plans (facility zone), not into the past and not beyond the
+   * booking horizon: the same limits a new request meets, so a plan cannot put a booking where nobody could book it.
+   */
+  function refuseMove(b: TimelineBlock, startsAt: Date, endsAt: Date, day: { dayStart: Date; dayEnd: Date }, date: string, policies: FacilityPolicies, now: number) {
+    const refuse = (rule: string, message: string) => new AppError('rule_violation', message, 422, { rule, bookingId: b.id });
+    if (startsAt.getTime() < now) return refuse('past', 'A plan cannot move a booking to a start in the past');
+    if (startsAt.getTime() > now + policies.horizonDays * 86_400_000) return refuse('horizon', `A plan cannot move a booking more than ${policies.horizonDays} days ahead (the booking horizon)`);
+    const startsWithin = (d: Date) => d >= day.dayStart && d < day.dayEnd;
+    if (!startsWithin(startsAt) || endsAt > day.dayEnd || !startsWithin(b.startsAt)) return refuse('date', `A plan for ${date} can only move bookings of that day within that day (facility time zone)`);
+    return null;
+  }
+
   /** Moves the bookings as planned in one transaction; the overlap constraint is checked at commit, the changeover here. */
   async function apply(actor: SessionUser, input: { instrumentId: string; date: string; order: { bookingId: string; startsAt: string; endsAt: string }[] }, requestId?: string) {
     return ctx.db.transaction(async (m) => {
-      const { timeline: t } = await timelineOf(ctx.reference, m, input.instrumentId, { lock: true });
+      const { timeline: t, reference } = await timelineOf(ctx.reference, m, input.instrumentId, { lock: true });
+      const day = await dayBounds(input.date);
+      const now = Date.now();
       await m.query('SET CONSTRAINTS timeline_blocks_no_overlap DEFERRED');
       const rows = await m.getRepository(TimelineBlock).find({ where: { id: In(input.order.map((o) => o.bookingId)), instrumentId: input.instrumentId, kind: 'booking' } });
       if (rows.length !== input.order.length) throw new AppError('not_found', 'Some bookings in the plan do not exist on this instrument', 404);
@@ -89,14 +106,15 @@ export function plannerService(ctx: AppContext) {
         const endsAt = new Date(o.endsAt);
         if (endsAt.getTime() - startsAt.getTime() !== b.endsAt.getTime() - b.startsAt.getTime()) throw new AppError('rule_violation', 'A plan may move bookings but not change their length', 422);
         if (startsAt.getTime() === b.startsAt.getTime()) continue;
+        const refused = refuseMove(b, startsAt, endsAt, day, input.date, reference.facility.policies, now);
+        if (refused) throw refused;
         const before = auditSnapshot(b);
         Object.assign(b, { startsAt, endsAt, sequence: b.sequence + 1 });
         await m.getRepository(TimelineBlock).save(b);
         await recordAudit(m, { actorUserId: actor.id, action: 'booking.moved', entityType: 'booking', entityId: b.id, before, after: { ...auditSnapshot(b), note: 'day plan' }, requestId });
         moved.push(b);
       }
-      const { dayStart, dayEnd } = await dayBounds(input.date);
-      const all = toEngineBlocks(await occupyingBlocks(m, new Date(dayStart.getTime() - 86_400_000), new Date(dayEnd.getTime() + 86_400_000), input.instrumentId), t.configurations);
+      const all = toEngineBlocks(await occupyingBlocks(m, new Date(day.dayStart.getTime() - 86_400_000), new Date(day.dayEnd.getTime() + 86_400_000), input.instrumentId), t.configurations);
       for (const b of rows) {
         const c = checkTimeline(all, { id: b.id, start: b.startsAt, end: b.endsAt, state: stateOf(b, t.configurations)! }, { model: t.model });
         if (!c.ok) throw new AppError(c.overlaps.length ? 'overlap' : 'changeover_gap', 'The plan no longer fits the timeline (it changed since the proposal); run the planner again', 409, { bookingId: b.id, before: c.before, after: c.after });

@@ -61,6 +61,9 @@ export function eventTimeText(arg: EventTimeArg): string {
 const headerToolbar = { left: 'prev,next today', center: 'title', right: 'timeGridWeek,timeGridDay,dayGridMonth' };
 const buttonText = { today: 'Today', week: 'Week', day: 'Day', month: 'Month' };
 const dayHeaderFormat = { weekday: 'short', day: 'numeric', month: 'numeric', omitCommas: true } as const;
+// A month's columns stand for weekdays: FullCalendar formats their headers from a fixed week of January 1970, so a
+// format with a date in it prints "Mon 1/5 … Sun 1/4" whatever the month. The weekday alone is the right header.
+const views = { dayGridMonth: { dayHeaderFormat: { weekday: 'short' } } } as const;
 
 /** The booking, window or band behind an event; undefined for the mirror FullCalendar draws while a range is dragged. */
 function itemOf(arg: { event: { extendedProps: Record<string, unknown> } }): CalendarItem | undefined {
@@ -165,6 +168,7 @@ export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
         slotLabelFormat={hourMinute}
         eventTimeFormat={eventTimeText}
         dayHeaderFormat={dayHeaderFormat}
+        views={views}
         selectable
         selectMirror
         unselectAuto

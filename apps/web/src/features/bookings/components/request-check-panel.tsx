@@ -1,8 +1,10 @@
 import type { BookingCheckDto, PickerUnit, TableRole } from '@femtoslot/shared';
-import { Button } from '../../../components/ui/button';
+import { formatInstantsIn } from '@femtoslot/shared/time/format-instant';
 import { cx } from '../../../lib/cx';
-import { formatInstant, formatMinutes } from '../../../lib/wall-time';
+import { formatMinutes, viewerTimeZone } from '../../../lib/wall-time';
+import { requestVerdict } from '../lib/request-verdict';
 import { formatInUnit } from '../lib/target-units';
+import { RequestVerdictLine } from './request-verdict';
 
 export const roleLabels: Record<TableRole, string> = {
   pump_residual: 'Pump residual',
@@ -44,11 +46,9 @@ function NeighbourLine({ label, testId, neighbour }: { label: string; testId: st
       </p>
     );
   }
-  const short = neighbour.shortfallMinutes > 0;
   return (
-    <p data-testid={testId} data-needed={neighbour.neededMinutes} data-available={neighbour.availableMinutes} className={cx(short && 'font-semibold text-danger')}>
-      {label}: ⟳ {formatMinutes(neighbour.neededMinutes)} changeover needed, {formatMinutes(neighbour.availableMinutes)} free
-      {short ? ` — ${formatMinutes(neighbour.shortfallMinutes)} short` : ' — fits'}.
+    <p data-testid={testId} data-needed={neighbour.neededMinutes} data-available={neighbour.availableMinutes} className={cx(neighbour.shortfallMinutes > 0 ? 'text-danger' : 'text-ink-muted')}>
+      {label}: ⟳ {formatMinutes(neighbour.neededMinutes)} changeover needed, {formatMinutes(neighbour.availableMinutes)} free.
     </p>
   );
 }
@@ -57,39 +57,35 @@ export interface RequestCheckPanelProps {
   check: BookingCheckDto | undefined;
   checking: boolean;
   error: string | null;
+  /** the facility's zone */
   timeZone: string;
   onUseEarliest: (earliestStart: string) => void;
 }
 
-/** The live dry run: changeover against the neighbours, the earliest start that works, and what else the API found. */
+/**
+ * The live dry run: one verdict (see requestVerdict), the changeover against each neighbour as figures, and what else
+ * the API found. Beside an overlap the neighbour figures would mislead (they skip the overlapped block), so they go.
+ */
 export function RequestCheckPanel({ check, checking, error, timeZone, onUseEarliest }: RequestCheckPanelProps) {
   if (error) return <p className="text-sm text-danger">The check could not run: {error}</p>;
   if (!check) return <p className="text-sm text-ink-muted">{checking ? 'Checking…' : 'Fill in the configuration, target and times to check the request.'}</p>;
-  const { timeline } = check;
-  const blocked = (timeline.before?.shortfallMinutes ?? 0) > 0 || (timeline.after?.shortfallMinutes ?? 0) > 0 || timeline.overlaps.length > 0;
+  const verdict = requestVerdict(check);
   const other = check.problems.filter((p) => p.code !== 'changeover_gap' && p.code !== 'overlap');
+  const overlapping = verdict.kind === 'overlap' || verdict.kind === 'maintenance';
   return (
-    <div className="space-y-2 text-sm" data-testid="request-check" data-ok={check.ok} aria-busy={checking || undefined}>
-      <NeighbourLine label="Before" testId="changeover-before" neighbour={timeline.before} />
-      <NeighbourLine label="After" testId="changeover-after" neighbour={timeline.after} />
-      {timeline.overlaps.length > 0 && <p className="font-semibold text-danger">The time overlaps another booking or a maintenance window.</p>}
-      {timeline.earliestStart && (
-        <div data-testid="earliest-start" data-earliest-start={timeline.earliestStart} className="flex flex-wrap items-center gap-2">
-          <span className={cx(blocked ? 'font-semibold' : 'text-ink-muted')}>
-            Earliest feasible start: {formatInstant(timeline.earliestStart, timeZone)}
-          </span>
-          {blocked && (
-            <Button size="sm" variant="secondary" data-testid="use-earliest-start" onClick={() => onUseEarliest(timeline.earliestStart!)}>
-              Use {formatInstant(timeline.earliestStart, timeZone).split(', ').pop()}
-            </Button>
-          )}
-        </div>
+    <div className="space-y-2 text-sm" data-testid="request-check" data-ok={check.ok} data-verdict={verdict.kind} aria-busy={checking || undefined}>
+      <RequestVerdictLine verdict={verdict} timeZone={timeZone} onUseEarliest={onUseEarliest} />
+      {!overlapping && (
+        <>
+          <NeighbourLine label="Before" testId="changeover-before" neighbour={check.timeline.before} />
+          <NeighbourLine label="After" testId="changeover-after" neighbour={check.timeline.after} />
+        </>
       )}
       {other.length > 0 && (
         <ul className="list-disc space-y-1 pl-5 text-danger" data-testid="check-problems">
           {other.map((p) => (
             <li key={p.code + p.message} data-code={p.code}>
-              {p.message}
+              {formatInstantsIn(p.message, timeZone, viewerTimeZone())}
             </li>
           ))}
         </ul>

@@ -1,4 +1,5 @@
 import type { BookingCheckDto, CreateBookingInput } from '@femtoslot/shared';
+import { describeInstant, formatInstantsIn } from '@femtoslot/shared/time/format-instant';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { type ReactNode, useEffect, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
@@ -9,11 +10,12 @@ import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError } from '../../../lib/api-client';
 import { useDebouncedValue } from '../../../lib/use-debounced-value';
-import { formatInstant, formatMinutes, instantToFields } from '../../../lib/wall-time';
+import { formatInstant, formatMinutes, instantToFields, viewerTimeZone } from '../../../lib/wall-time';
 import { useBookingCheck } from '../api/check-booking';
 import { useCreateBooking } from '../api/create-booking';
 import { type ChangeoverGapDetails, changeoverGapDetails } from '../lib/changeover-gap';
 import { type RequestFormValues, buildRequest, requestFormSchema, serverFieldFor } from '../lib/request-form-values';
+import { requestVerdict } from '../lib/request-verdict';
 import { RequestCheckPanel } from './request-check-panel';
 import { type RequestConfiguration, TargetFields, TimeFields, defaultTargetText } from './request-form-fields';
 import { SafetyStep } from './safety-step';
@@ -97,6 +99,7 @@ function RequestFormBody(props: RequestFormProps) {
   const check = useBookingCheck(checkBody);
   const checkData: BookingCheckDto | undefined = checkKey ? check.data : undefined;
   const noEyewear = checkData !== undefined && checkData.onTable.length > 0 && checkData.eyewear.length === 0;
+  const refused = checkData !== undefined && requestVerdict(checkData).refuses;
 
   useEffect(() => {
     setGap(null);
@@ -221,7 +224,7 @@ function RequestFormBody(props: RequestFormProps) {
         <Notice tone="danger" testId="changeover-gap-error" title="Not enough time for the changeover">
           <p>
             Needed {formatMinutes(gap.neededMinutes)}, available {formatMinutes(gap.availableMinutes)}.
-            {gap.earliestStart && ` The earliest start that works is ${formatInstant(gap.earliestStart, timeZone)}.`}
+            {gap.earliestStart && ` The earliest start that works is ${describeInstant(gap.earliestStart, timeZone, viewerTimeZone())}.`}
           </p>
           {gap.earliestStart && (
             <Button size="sm" className="mt-2" data-testid="use-earliest-start" onClick={() => applyEarliestStart(gap.earliestStart!)}>
@@ -232,7 +235,7 @@ function RequestFormBody(props: RequestFormProps) {
       )}
       {refusal && (
         <Notice tone="danger" testId="request-refused" title="The request was not accepted">
-          <span data-code={refusal.code}>{refusal.message}</span>
+          <span data-code={refusal.code}>{formatInstantsIn(refusal.message, timeZone, viewerTimeZone())}</span>
         </Notice>
       )}
 
@@ -250,7 +253,7 @@ function RequestFormBody(props: RequestFormProps) {
           <Button variant="secondary" onClick={onClose}>
             Cancel
           </Button>
-          <Button type="submit" busy={create.isPending} disabled={noEyewear} data-testid="submit-request">
+          <Button type="submit" busy={create.isPending} disabled={noEyewear || refused} data-testid="submit-request">
             {status === 'approved' ? 'Book beam time' : 'Send request'}
           </Button>
         </div>

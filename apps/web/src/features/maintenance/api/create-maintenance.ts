@@ -6,6 +6,8 @@ import { bookingKeys } from '../../../lib/query-keys';
 export interface MaintenanceResult {
   maintenance: MaintenanceDto;
   displaced: BookingDto[];
+  /** the booking after the window whose warm-up the window cuts short: kept, flagged to staff */
+  warmupConflicts?: { bookingId: string; neededMinutes: number; availableMinutes: number }[];
 }
 
 export const createMaintenance = (input: MaintenanceInput) => apiClient.post<MaintenanceResult>('/api/maintenance', input);

@@ -5,7 +5,9 @@ export interface DayPlanProposal {
   provenOptimal: boolean;
   method: 'exact' | 'heuristic';
   changeoverMinutes: number;
+  /** against the day as it stands */
   savedMinutes: number;
+  currentChangeoverMinutes: number | null;
   firstComeChangeoverMinutes: number;
   order: { bookingId: string; startsAt: string; endsAt: string; changeoverBeforeMinutes: number }[];
   unplaced: { bookingId: string; reason: string }[];

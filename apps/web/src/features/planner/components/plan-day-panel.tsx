@@ -30,6 +30,13 @@ const reasonText: Record<string, string> = {
   crowded_out: 'placing it would push out others',
 };
 
+function movesAny(plan: DayPlanProposal, describe: PlanDayPanelProps['describe']): boolean {
+  return plan.order.some((row) => {
+    const info = describe(row.bookingId);
+    return !info || new Date(info.currentStart).getTime() !== new Date(row.startsAt).getTime();
+  });
+}
+
 /** Staff: reorder the day's movable requests to spend less time retuning, then apply. */
 export function PlanDayPanel(props: PlanDayPanelProps) {
   const { instrumentId, date, timeZone } = props;
@@ -88,11 +95,14 @@ export function PlanDayPanel(props: PlanDayPanelProps) {
             <div className="rounded-xl border border-line bg-panel px-4 py-3" data-testid="plan-changeover" data-minutes={plan.changeoverMinutes}>
               <p className="text-xs font-bold tracking-wide text-ink-muted uppercase">Changeover in the day</p>
               <p className="mt-1 font-semibold">⟳ {formatMinutes(plan.changeoverMinutes)}</p>
-              <p className="text-xs text-ink-muted">First-come order: {formatMinutes(plan.firstComeChangeoverMinutes)}</p>
+              <p className="text-xs text-ink-muted">
+                As it stands: {formatMinutes(plan.currentChangeoverMinutes ?? plan.changeoverMinutes)} · first-come order: {formatMinutes(plan.firstComeChangeoverMinutes)}
+              </p>
             </div>
             <div className="rounded-xl border border-line bg-panel px-4 py-3" data-testid="plan-saved" data-minutes={plan.savedMinutes}>
-              <p className="text-xs font-bold tracking-wide text-ink-muted uppercase">Saved against first-come</p>
+              <p className="text-xs font-bold tracking-wide text-ink-muted uppercase">Saved against the day as it stands</p>
               <p className="mt-1 font-semibold">{formatMinutes(plan.savedMinutes)}</p>
+              {plan.savedMinutes === 0 && <p className="text-xs text-ink-muted">No order saves changeover; nothing would move.</p>}
               {plan.savedMinutes < 0 && <p className="text-xs text-ink-muted">More changeover, but more requests fit in.</p>}
             </div>
           </div>
@@ -138,7 +148,7 @@ export function PlanDayPanel(props: PlanDayPanelProps) {
           )}
 
           <div className="flex justify-end">
-            <Button data-testid="plan-apply" busy={apply.isPending} disabled={plan.order.length === 0} onClick={applyPlan}>
+            <Button data-testid="plan-apply" busy={apply.isPending} disabled={plan.order.length === 0 || !movesAny(plan, props.describe)} onClick={applyPlan}>
               Apply plan
             </Button>
           </div>

@@ -1,0 +1,113 @@
+import { zonedToUtc } from '@femtoslot/shared';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+
+let t: TestApi;
+let browser: Awaited<ReturnType<typeof launchBrowser>>;
+beforeAll(async () => {
+  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await t?.close();
+});
+
+const zone = 'America/New_York'; // the demo facility's zone
+
+/** The second Sunday at least fifteen days ahead (facility zone): the demo seed books weekdays, other browser tests nearer Sundays. */
+function quietSunday(): string {
+  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: zone });
+  for (let d = 15; d < 40; d++) {
+    const day = new Date(Date.now() + d * 86_400_000);
+    if (new Intl.DateTimeFormat('en-US', { timeZone: zone, weekday: 'short' }).format(day) === 'Sun') return fmt.format(day);
+  }
+  throw new Error('no Sunday found');
+}
+
+async function selectOptionContaining(page: Page, selector: string, text: string) {
+  const value = await page.$eval(selector, (el, x) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(x))?.value ?? '', text);
+  expect(value).not.toBe('');
+  await page.selectOption(selector, value);
+}
+
+describe('calendar month view and request verdict in Chromium', () => {
+  it('when the month view opens on December 2026, then the columns are named Mon to Sun and the first cell is 30 November', async () => {
+    await browser.context.clearCookies();
+    const page = await browser.context.newPage();
+    await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');
+    await page.goto(`${t.api.url}/calendar`);
+    await page.getByTestId('calendar').waitFor();
+    await page.locator('.fc-dayGridMonth-button').click();
+    const title = page.locator('.fc-toolbar-title');
+    // Page to December 2026 from whatever month the machine's clock is in.
+    for (let i = 0; i < 24 && (await title.textContent()) !== 'December 2026'; i++) {
+      const shown = new Date(`1 ${await title.textContent()} UTC`);
+      await page.locator(shown < new Date(Date.UTC(2026, 11, 1)) ? '.fc-next-button' : '.fc-prev-button').click();
+    }
+    expect(await title.textContent()).toBe('December 2026');
+    expect(await page.locator('th.fc-col-header-cell').allTextContents()).toEqual(['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun']);
+    // 1 December 2026 is a Tuesday (Gregorian calendar), so a grid from Monday starts on 30 November.
+    expect(await page.locator('td.fc-daygrid-day[data-date]').first().getAttribute('data-date')).toBe('2026-11-30');
+    await screenshot(page, 'calendar-month-december-2026');
+    await page.close();
+  });
+
+  it('when a request overlaps a booking, then the form gives one refusing verdict with the earliest start in both zones and Send is off; a clear time fits', async () => {
+    const day = quietSunday();
+    const [y, m, d] = day.split('-').map(Number) as [number, number, number];
+    const member = await t.signIn('member@harrowpoint.test', 'femtoslot-demo');
+    const instruments = (await member.get('/api/instruments')).body.instruments as { id: string; name: string }[];
+    const aurora = instruments.find((i) => i.name === 'Aurora line')!;
+    const configurations = (await member.get('/api/configurations').query({ instrumentId: aurora.id })).body.configurations as { id: string; key: string }[];
+    const accounts = (await member.get('/api/accounts')).body.accounts as { id: string; usable: boolean }[];
+    const startsAt = zonedToUtc({ year: y, month: m, day: d, hour: 10, minute: 0 }, zone);
+    const existing = await member.post('/api/bookings').send({
+      instrumentId: aurora.id, configurationId: configurations.find((c) => c.key === 'dfg')!.id, accountId: accounts.find((a) => a.usable)!.id,
+      startsAt: startsAt.toISOString(), endsAt: new Date(startsAt.getTime() + 3 * 3_600_000).toISOString(), targetNm: 4500, purpose: 'Mid-IR reference run',
+    });
+    expect(existing.status).toBe(201);
+
+    await browser.context.clearCookies();
+    const page = await browser.context.newPage();
+    await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');
+    await page.goto(`${t.api.url}/calendar`);
+    await page.getByTestId('new-request-button').click();
+    const form = page.getByTestId('request-form');
+    await form.waitFor();
+    await selectOptionContaining(page, '[data-testid="request-form"] select[name="configurationId"]', 'Fundamental');
+    await form.locator('input[name="targetValue"]').fill('800');
+    const setTimes = async (from: string, to: string) => {
+      await form.locator('input[name="startDate"]').fill(day);
+      await form.locator('input[name="startTime"]').fill(from);
+      await form.locator('input[name="endDate"]').fill(day);
+      await form.locator('input[name="endTime"]').fill(to);
+    };
+    await form.locator('[name="purpose"]').fill('Carrier lifetime of an InGaAs wafer');
+    await setTimes('11:00', '12:30');
+    const verdict = page.getByTestId('request-verdict');
+    await expect.poll(() => verdict.getAttribute('data-verdict'), { timeout: 15_000 }).toBe('overlap');
+    expect(await page.getByTestId('request-verdict').count()).toBe(1);
+    expect(await page.getByTestId('request-check').textContent()).not.toMatch(/fits/i);
+    expect(await page.getByTestId('submit-request').isDisabled()).toBe(true);
+    const earliest = (await page.getByTestId('earliest-start').textContent()) ?? '';
+    expect(earliest).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);
+    expect(earliest).toContain('(America/New_York)');
+    await page.getByTestId('request-check').scrollIntoViewIfNeeded();
+    await screenshot(page, 'request-verdict-overlap');
+
+    // Ten minutes after the DFG session ends: the DFG → fundamental changeover needs far more.
+    await setTimes('13:10', '14:10');
+    await expect.poll(() => verdict.getAttribute('data-verdict'), { timeout: 15_000 }).toBe('changeover_short');
+    expect(await page.getByTestId('submit-request').isDisabled()).toBe(true);
+    await screenshot(page, 'request-verdict-changeover-short');
+
+    await setTimes('16:00', '17:00');
+    await expect.poll(() => verdict.getAttribute('data-verdict'), { timeout: 15_000 }).toBe('fits');
+    expect(await page.getByTestId('submit-request').isDisabled()).toBe(false);
+    await screenshot(page, 'request-verdict-fits');
+    await page.close();
+  });
+});
