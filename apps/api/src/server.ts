@@ -29,6 +29,7 @@ import { billingRoutes } from './modules/billing/billing.routes';
 import { rateCardsRoutes } from './modules/rate-cards/rate-cards.routes';
 import { invoicesRoutes } from './modules/invoices/invoices.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
+import { stationsRoutes } from './modules/stations/stations.routes';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -51,6 +52,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...rateCardsRoutes(ctx),
     ...billingRoutes(ctx),
     ...invoicesRoutes(ctx),
+    ...stationsRoutes(ctx),
   ];
 }
 

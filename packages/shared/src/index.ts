@@ -6,3 +6,4 @@ export * from './bookings/booking-policy';
 export * from './usage/usage.schemas';
 export * from './engine';
 export * from './billing/billing.schemas';
+export * from './bookings/station.schemas';

@@ -53,3 +53,9 @@ import { ReferenceRevision1764979200000 } from './migrations/1764979200000-refer
 // A password reset ends the sessions issued before it.
 import { SessionEpoch1765065600000 } from './migrations/1765065600000-session-epoch';
 (migrations as unknown as (new () => object)[]).push(SessionEpoch1765065600000);
+
+// End stations booked with the source: station rows on the bench timelines, the station × configuration list.
+import { EndStations1765900000000 } from './migrations/1765900000000-end-stations';
+import { StationConfiguration } from '../modules/stations/station-configuration.entity';
+(entities as unknown as (new () => object)[]).push(StationConfiguration);
+(migrations as unknown as (new () => object)[]).push(EndStations1765900000000);

@@ -18,6 +18,7 @@ import { UsageSegment } from '../../modules/usage/usage-segment.entity';
 import { demoAccounts, demoEyewear, demoFacility, demoInstruments, demoOrganisations, demoPassword, demoUsers } from './demo-data';
 import { demoRateCard } from './demo-data';
 import { seedBilling } from '../../modules/billing/seed-billing';
+import { seedStations } from '../../modules/stations/seed-stations';
 
 const addDays = (isoDate: string, days: number) => {
   const d = new Date(`${isoDate}T12:00:00Z`);
@@ -40,6 +41,7 @@ export async function seedDemo(db: DataSource, now = new Date()): Promise<'seede
     await seedInstruments(m);
     await seedTimeline(m, now);
     await seedUsageLogs(m);
+    await seedStations(m, now, demoFacility.timeZone);
     await seedBilling(m, now, demoRateCard);
     return 'seeded';
   });

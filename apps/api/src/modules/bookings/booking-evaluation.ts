@@ -10,6 +10,7 @@ import type { Configuration } from '../instruments/configuration.entity';
 import type { Organisation } from '../organisations/organisation.entity';
 import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
+import { stationProblems } from '../stations/stations.service';
 import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
@@ -31,6 +32,8 @@ export interface BookingRequest {
   /** The booking's owner (the actor, or the owner when staff move a booking). */
   owner: SessionUser;
   excludeId?: string;
+  /** End stations booked with it (benches the configuration feeds). */
+  stationIds?: string[];
 }
 
 export interface Evaluation {
@@ -149,6 +152,10 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     }
   }
 
+  if (configuration && req.stationIds?.length) {
+    problems.push(...await stationProblems(m, { stationIds: req.stationIds, configurationId: configuration.id, startsAt: req.startsAt, endsAt: req.endsAt, excludeBookingId: req.excludeId }));
+  }
+
   const status: 'requested' | 'approved' = external && req.owner.role !== 'staff' ? 'requested' : 'approved';
   const dto: BookingCheckDto = {
     ok: problems.length === 0,
@@ -169,7 +176,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
 
 /** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */
 export function throwFirst(problems: Problem[]): void {
-  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'training_expired', 'no_eyewear', 'overlap', 'changeover_gap'];
+  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'station_incompatible', 'training_expired', 'no_eyewear', 'overlap', 'changeover_gap', 'station_busy'];
   const first = [...problems].sort((a, b) => order.indexOf(a.code) - order.indexOf(b.code))[0];
   if (first) throw new AppError(first.code, first.message, first.status, first.details);
 }

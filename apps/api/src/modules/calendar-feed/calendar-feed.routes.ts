@@ -39,7 +39,7 @@ export function calendarFeedRoutes(ctx: AppContext): RouteDef[] {
         const since = new Date(Date.now() - 30 * 86_400_000);
         const blocks = await ctx.db.getRepository(TimelineBlock).find({
           where: staffView
-            ? { status: In(['requested', 'approved', 'completed', 'scheduled']), endsAt: MoreThan(since) }
+            ? { kind: In(['booking', 'maintenance']), status: In(['requested', 'approved', 'completed', 'scheduled']), endsAt: MoreThan(since) }
             : { userId: user.id, kind: 'booking', status: In(['requested', 'approved', 'completed', 'cancelled', 'displaced']), endsAt: MoreThan(since) },
           order: { startsAt: 'ASC' },
         });

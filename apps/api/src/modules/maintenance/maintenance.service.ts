@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { findAlternativeSlots, type MaintenanceInput } from '@femtoslot/shared';
-import { In, LessThan, MoreThan, Not, type EntityManager } from 'typeorm';
+import { In, Not, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { AppError, notFound } from '../../lib/errors/app-error';
@@ -9,7 +9,8 @@ import { queueBookingMail } from '../bookings/booking-mail';
 import { auditSnapshot, toBookingDto, toMaintenanceDto } from '../bookings/booking.dto';
 import { loadLookups } from '../bookings/lookups';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
+import { activeBookingsUsing, occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
+import { slotsWithStationsFree, stationIdsOf } from '../stations/stations.service';
 
 const DAY = 86_400_000;
 
@@ -21,11 +22,7 @@ export function maintenanceService(ctx: AppContext) {
   async function displaceUnder(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; startsAt: Date; endsAt: Date; reason: string }, requestId?: string) {
     const { timeline } = await timelineOf(ctx.reference, m, window.instrumentId, { lock: true });
     const warmupEnd = new Date(window.endsAt.getTime() + timeline.model.warmupAfterMaintenanceMinutes * 60_000);
-    const victims = await m.getRepository(TimelineBlock).find({
-      where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(warmupEnd), endsAt: MoreThan(window.startsAt) },
-      order: { startsAt: 'ASC' },
-      lock: { mode: 'pessimistic_write' },
-    });
+    const victims = await activeBookingsUsing(m, window.instrumentId, window.startsAt, warmupEnd);
     for (const v of victims) {
       const before = auditSnapshot(v);
       // displaced_by is linked once the window row exists (see linkVictims): the window is inserted after its victims step aside.
@@ -40,18 +37,27 @@ export function maintenanceService(ctx: AppContext) {
     if (victims.length) await m.getRepository(TimelineBlock).update({ id: In(victims.map((v) => v.id)) }, { displacedBy: windowId });
   }
 
-  async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
+  async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], _windowInstrumentId: string, reason: string) {
     if (victims.length === 0) return;
+    // A window on a bench displaces bookings of the source(s) feeding it: alternatives are found on each booking's own source.
+    for (const instrumentId of new Set(victims.map((v) => v.instrumentId))) await offerAlternativesOn(m, victims.filter((v) => v.instrumentId === instrumentId), instrumentId, reason);
+  }
+
+  async function offerAlternativesOn(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
     const { timeline, reference: { facility } } = await timelineOf(ctx.reference, m, instrumentId);
     const now = Date.now();
     const horizonEnd = new Date(now + facility.policies.horizonDays * DAY);
     const blocks = toEngineBlocks(await occupyingBlocks(m, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY), instrumentId), timeline.configurations);
+    const stations = await stationIdsOf(m, victims.map((v) => v.id));
     for (const v of victims) {
       const state = stateOf(v, timeline.configurations);
       const duration = v.endsAt.getTime() - v.startsAt.getTime();
       // Start looking from the original slot (or from now plus the external lead time, if that is later).
       const from = Math.max(v.startsAt.getTime(), now + facility.policies.externalLeadHours * 3_600_000);
-      const slots = state ? findAlternativeSlots(blocks, { start: new Date(from), end: new Date(from + duration), state }, { model: timeline.model, count: 3, horizonEnd, stepMinutes: 120 }) : [];
+      const own = stations.get(v.id) ?? [];
+      // With end stations, more candidates on the source, then those that leave the stations free too.
+      const found = state ? findAlternativeSlots(blocks, { start: new Date(from), end: new Date(from + duration), state }, { model: timeline.model, count: own.length ? 12 : 3, horizonEnd, stepMinutes: 120 }) : [];
+      const slots = (await slotsWithStationsFree(m, v.id, own, found)).slice(0, 3);
       v.alternatives = slots.map((s) => ({ startsAt: s.start.toISOString(), endsAt: s.end.toISOString() }));
       await m.getRepository(TimelineBlock).update({ id: v.id }, { alternatives: v.alternatives });
       await queueBookingMail(ctx, m, 'displaced', v, { reason });
