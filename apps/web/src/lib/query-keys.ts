@@ -99,3 +99,8 @@ export const rateCardKeys = {
   all: ['rate-cards'] as const,
   list: () => [...rateCardKeys.all, 'list'] as const,
 };
+
+export const stationKeys = {
+  all: ['stations'] as const,
+  list: () => [...stationKeys.all, 'list'] as const,
+};

@@ -17,6 +17,7 @@ import { type RequestFormValues, buildRequest, requestFormSchema, serverFieldFor
 import { RequestCheckPanel } from './request-check-panel';
 import { type RequestConfiguration, TargetFields, TimeFields, defaultTargetText } from './request-form-fields';
 import { SafetyStep } from './safety-step';
+import { StationPicker } from './station-picker';
 
 export interface RequestFormProps {
   open: boolean;
@@ -47,7 +48,9 @@ export function RequestForm(props: RequestFormProps) {
 }
 
 function initialValues({ instruments, configurations, accounts, initial, timeZone }: RequestFormProps): RequestFormValues {
-  const instrumentId = initial.instrumentId ?? instruments.find((i) => i.kind === 'source')?.id ?? instruments[0]?.id ?? '';
+  // Asked from a bench's calendar: the beam comes from the source, with that bench as an end station.
+  const bench = instruments.find((i) => i.id === initial.instrumentId && i.kind === 'bench');
+  const instrumentId = (bench ? undefined : initial.instrumentId) ?? instruments.find((i) => i.kind === 'source')?.id ?? instruments[0]?.id ?? '';
   const configuration = configurations.find((c) => c.instrumentId === instrumentId);
   const tomorrow = new Date(Date.now() + 86_400_000);
   tomorrow.setUTCMinutes(0, 0, 0);
@@ -66,6 +69,7 @@ function initialValues({ instruments, configurations, accounts, initial, timeZon
     endTime: end.time,
     accountId: accounts.find((a) => a.usable)?.id ?? '',
     purpose: '',
+    stationIds: bench ? [bench.id] : [],
   };
 }
 
@@ -183,6 +187,7 @@ function RequestFormBody(props: RequestFormProps) {
           </SelectField>
         </div>
         <TargetFields form={form} configuration={configuration} pumpNm={instrument?.pumpNm ?? null} />
+        <StationPicker form={form} />
       </section>
 
       <section className="space-y-4">
