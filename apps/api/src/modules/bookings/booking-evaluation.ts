@@ -10,7 +10,7 @@ import type { Configuration } from '../instruments/configuration.entity';
 import type { Organisation } from '../organisations/organisation.entity';
 import type { ReferenceCache, ReferenceData } from '../instruments/reference-data';
 import type { EyewearItem } from '../safety/eyewear-item.entity';
-import { stationProblems } from '../stations/stations.service';
+import { earliestWithStationsFree, stationProblems } from '../stations/stations.service';
 import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
@@ -128,7 +128,14 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
     const blocks = await occupyingBlocks(m, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR), req.instrumentId);
     const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
-    check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.parsedModel, horizonEnd });
+    const engineBlocks = toEngineBlocks(blocks, timeline.configurations);
+    const candidate = { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } };
+    check = checkTimeline(engineBlocks, candidate, { model: timeline.parsedModel, horizonEnd });
+    if (req.stationIds?.length) {
+      const ms = req.endsAt.getTime() - req.startsAt.getTime();
+      const onSource = (from: Date) => checkTimeline(engineBlocks, { ...candidate, start: from, end: new Date(from.getTime() + ms) }, { model: timeline.parsedModel, horizonEnd }).earliestStart;
+      check = { ...check, earliestStart: await earliestWithStationsFree(m, req.stationIds, req.excludeId, check.earliestStart, ms, horizonEnd, onSource) };
+    }
     const details = {
       neededMinutes: Math.max(check.before?.neededMinutes ?? 0, check.after?.neededMinutes ?? 0),
       availableMinutes: Math.min(check.before?.availableMinutes ?? Infinity, check.after?.availableMinutes ?? Infinity),
@@ -153,7 +160,7 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
   }
 
   if (configuration && req.stationIds?.length) {
-    problems.push(...await stationProblems(m, { stationIds: req.stationIds, configurationId: configuration.id, startsAt: req.startsAt, endsAt: req.endsAt, excludeBookingId: req.excludeId }));
+    problems.push(...await stationProblems(m, { stationIds: req.stationIds, configurationId: configuration.id, startsAt: req.startsAt, endsAt: req.endsAt, excludeBookingId: req.excludeId, earliestStart: check?.earliestStart }));
   }
 
   const status: 'requested' | 'approved' = external && req.owner.role !== 'staff' ? 'requested' : 'approved';

@@ -38,6 +38,8 @@ export interface StationRequest {
   endsAt: Date;
   /** The booking being moved: its own station rows do not count as busy. */
   excludeBookingId?: string;
+  /** Where the source and the stations are both free, for the message. */
+  earliestStart?: Date | null;
 }
 
 /**
@@ -63,7 +65,9 @@ export async function stationProblems(m: EntityManager, req: StationRequest): Pr
     } else if (!r.compatible) {
       problems.push({ code: 'station_incompatible', message: `The ${r.name} cannot be fed by that configuration; choose another configuration or leave the station out`, status: 422, details: { stationId: r.id, reason: 'configuration' } });
     } else if (r.overlaps.length > 0) {
-      problems.push({ code: 'station_busy', message: `The ${r.name} is booked or under maintenance at that time`, status: 409, details: { stationId: r.id, overlaps: r.overlaps } });
+      const suggestion = req.earliestStart ? ` The earliest start that works is ${req.earliestStart.toISOString().replace(':00.000Z', 'Z')}.` : '';
+      problems.push({ code: 'station_busy', message: `The ${r.name} is booked or under maintenance at that time.${suggestion}`, status: 409,
+        details: { stationId: r.id, overlaps: r.overlaps, earliestStart: req.earliestStart?.toISOString() ?? null } });
     }
   }
   return problems;
@@ -103,4 +107,26 @@ export async function slotsWithStationsFree<T extends { start: Date; end: Date }
       WHERE instrument_id = ANY($1::uuid[]) AND status = ANY($2::text[]) AND starts_at < $4 AND ends_at > $3 AND parent_id IS DISTINCT FROM $5::uuid`,
     [stationIds, [...occupyingStatuses], from, to, bookingId]);
   return slots.filter((s) => !busy.some((b) => b.starts_at < s.end && b.ends_at > s.start));
+}
+
+/**
+ * The earliest start ≥ the source's own earliest where the stations are free too: past each station block in the way,
+ * the source's timeline is asked again (`onSource`) from the end of that block. Null when nothing fits in the horizon.
+ */
+export async function earliestWithStationsFree(m: EntityManager, stationIds: string[], excludeBookingId: string | undefined, sourceEarliest: Date | null,
+  durationMs: number, horizonEnd: Date, onSource: (from: Date) => Date | null): Promise<Date | null> {
+  if (!sourceEarliest) return null;
+  const busy: { starts_at: Date; ends_at: Date }[] = await m.query(
+    `SELECT starts_at, ends_at FROM timeline_blocks
+      WHERE instrument_id = ANY($1::uuid[]) AND status = ANY($2::text[]) AND ends_at > $3 AND starts_at < $4 AND ($5::uuid IS NULL OR parent_id IS DISTINCT FROM $5::uuid)
+      ORDER BY starts_at`,
+    [stationIds, [...occupyingStatuses], sourceEarliest, new Date(horizonEnd.getTime() + durationMs), excludeBookingId ?? null]);
+  let start: Date | null = sourceEarliest;
+  for (let i = 0; start && i <= busy.length; i++) {
+    const from: Date = start;
+    const clash = busy.find((b) => b.starts_at.getTime() < from.getTime() + durationMs && b.ends_at > from);
+    if (!clash) return start;
+    start = onSource(clash.ends_at);
+  }
+  return null;
 }

@@ -83,6 +83,9 @@ describe('end stations booked with the source', () => {
     expect(second.body.error).toMatchObject({ code: 'station_busy', details: { stationId: station.id, overlaps: expect.any(Array) } });
     const check = await me.agent.post('/api/bookings/check').send(body(b.instrument.id, b.configs.opa_signal.id, me.account.id, plusHours(start, 2), 2, 1310, [station.id]));
     expect(check.body.problems.map((p: { code: string }) => p.code)).toContain('station_busy');
+    // The earliest start offered leaves the station free too: right after the first booking (the second source is idle).
+    expect(second.body.error.details.earliestStart).toBe(plusHours(start, 3).toISOString());
+    expect(check.body.timeline.earliestStart).toBe(plusHours(start, 3).toISOString());
     const without = await me.agent.post('/api/bookings').send(body(b.instrument.id, b.configs.opa_signal.id, me.account.id, plusHours(start, 2), 2, 1310));
     expect(without.status).toBe(201);
   });
