@@ -173,6 +173,25 @@ describe('end stations booked with the source', () => {
     expect(await stationRows(a.body.booking.id)).toMatchObject([{ starts_at: plusHours(start, 2), ends_at: plusHours(start, 4) }]);
   });
 
+  it('when a day plan swaps two bookings that share a station, then the station rows swap with them inside the deferred constraint', async () => {
+    const { instrument, configs } = await makeInstrument(t);
+    const station = await makeStation([configs.fundamental.id]);
+    const me = await makeBooker(t);
+    const staff = await staffAgent();
+    const start = hoursFromNow(24 * 12);
+    const first = await me.agent.post('/api/bookings').send(body(instrument.id, configs.fundamental.id, me.account.id, start, 2, 800, [station.id]));
+    const second = await me.agent.post('/api/bookings').send(body(instrument.id, configs.fundamental.id, me.account.id, plusHours(start, 2), 2, 800, [station.id]));
+    expect([first.status, second.status]).toEqual([201, 201]);
+    const date = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/New_York' }).format(start);
+    const applied = await staff.post('/api/planner/day/apply').send({ instrumentId: instrument.id, date, order: [
+      { bookingId: second.body.booking.id, startsAt: start.toISOString(), endsAt: plusHours(start, 2).toISOString() },
+      { bookingId: first.body.booking.id, startsAt: plusHours(start, 2).toISOString(), endsAt: plusHours(start, 4).toISOString() },
+    ] });
+    expect(applied.status).toBe(200);
+    expect((await stationRows(second.body.booking.id))[0]!.starts_at).toEqual(start);
+    expect((await stationRows(first.body.booking.id))[0]!.starts_at).toEqual(plusHours(start, 2));
+  });
+
   it('when a move would put the station over its maintenance, then the move is refused with 409', async () => {
     const { instrument, configs } = await makeInstrument(t);
     const station = await makeStation([configs.fundamental.id]);
