@@ -1,3 +1,4 @@
+import ical from 'node-ical';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Instrument } from '../../instruments/instrument.entity';
 import { hoursFromNow, makeBooker, makeInstrument, plusHours } from '../../../test-support/booking-fixture';
@@ -50,6 +51,10 @@ describe('end stations booked with the source', () => {
     expect(onBench.body.changeovers).toEqual([]);
     const detail = await me.agent.get(`/api/bookings/${res.body.booking.id}`);
     expect(detail.body.booking.stationIds).toEqual([station.id]);
+    // The owner's calendar feed (RFC 5545 LOCATION, read back with node-ical) names the station beside the source.
+    const feed = new URL((await me.agent.get('/api/calendar/feed')).body.url).pathname;
+    const events = Object.values(ical.sync.parseICS((await t.http().get(feed)).text)).filter((v) => v.type === 'VEVENT') as unknown as { location: string }[];
+    expect(events.map((e) => e.location)).toEqual([expect.stringContaining(`${instrument.name}, ${station.name}`)]);
     const listed = await me.agent.get('/api/stations');
     expect(listed.body.stations.find((s: { id: string }) => s.id === station.id)).toMatchObject({ configurationIds: [configs.fundamental.id] });
   });
