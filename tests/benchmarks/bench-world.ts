@@ -150,6 +150,11 @@ export async function seedBenchWorld(databaseUrl: string, now = new Date()): Pro
     await c.query(`INSERT INTO usage_logs (booking_id, status, actual_starts_at, actual_ends_at, notes, submitted_by, submitted_at, confirmed_by, confirmed_at)
       SELECT id, 'confirmed', starts_at + interval '5 minutes', ends_at, 'Bench log', user_id, ends_at, $1, ends_at + interval '1 hour'
       FROM timeline_blocks WHERE purpose = 'Bench session (close month)'`, [staff.id]);
+    // About half of the first source's sessions take an end station along, so the week query aggregates real station rows.
+    const [station] = (await c.query(`INSERT INTO instruments (name, kind, description) VALUES ('Bench-world station', 'bench', 'benchmark') RETURNING id`)).rows;
+    await c.query(`INSERT INTO timeline_blocks (instrument_id, kind, status, starts_at, ends_at, parent_id)
+      SELECT $1, 'station', b.status, b.starts_at, b.ends_at, b.id FROM timeline_blocks b
+       WHERE b.instrument_id = $2 AND b.kind = 'booking' AND (extract(epoch FROM b.starts_at)::bigint / 3600) % 2 = 0`, [station.id, instruments[0]!.id]);
 
     const booker = { email: users[ACCOUNTS]!.email, userId: users[ACCOUNTS]!.id, organisationId: orgs[ACCOUNTS]!.id, accountId: accounts[ACCOUNTS]!.id };
     const renderWeek = await seedRenderWeek(c, aurora.id, timeZone, now, booker);

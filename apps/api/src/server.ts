@@ -33,6 +33,7 @@ import { beamTimeRoutes } from './modules/beam-time/beam-time.routes';
 import { stripeWebhookHandler } from './modules/webhooks/stripe-webhook';
 import { instrumentAdminRoutes } from './modules/instruments/instrument-admin.routes';
 import { trainingRoutes } from './modules/training/training.routes';
+import { stationsRoutes } from './modules/stations/stations.routes';
 
 /** The router table: every API route with its access rule, mounted under /api. */
 export function routeTable(ctx: AppContext): RouteDef[] {
@@ -59,6 +60,7 @@ export function routeTable(ctx: AppContext): RouteDef[] {
     ...estimatesRoutes(ctx),
     ...beamTimeRoutes(ctx),
     ...trainingRoutes(ctx),
+    ...stationsRoutes(ctx),
   ];
 }
 

@@ -9,3 +9,4 @@ export * from './billing/billing.schemas';
 export * from './facility/instrument-admin.schemas';
 export * from './time/iso-schemas';
 export * from './training/training.schemas';
+export * from './bookings/station.schemas';

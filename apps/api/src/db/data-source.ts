@@ -78,3 +78,8 @@ import { ConfigurationSignoff } from '../modules/training/configuration-signoff.
 // Facility working hours (offers to displaced bookings prefer them).
 import { FacilityWorkingHours1765600000000 } from './migrations/1765600000000-facility-working-hours';
 (migrations as unknown as (new () => object)[]).push(FacilityWorkingHours1765600000000);
+// End stations booked with the source: station rows on the bench timelines, the station × configuration list.
+import { EndStations1765900000000 } from './migrations/1765900000000-end-stations';
+import { StationConfiguration } from '../modules/stations/station-configuration.entity';
+(entities as unknown as (new () => object)[]).push(StationConfiguration);
+(migrations as unknown as (new () => object)[]).push(EndStations1765900000000);

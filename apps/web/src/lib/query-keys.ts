@@ -124,3 +124,8 @@ export const trainingKeys = {
   people: (q: string) => [...trainingKeys.all, 'people', q] as const,
   person: (id: string) => [...trainingKeys.all, 'person', id] as const,
 };
+
+export const stationKeys = {
+  all: ['stations'] as const,
+  list: () => [...stationKeys.all, 'list'] as const,
+};

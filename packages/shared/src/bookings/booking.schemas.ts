@@ -23,6 +23,8 @@ const bookingBase = z.object({
   purpose: z.string().trim().min(3, 'Say in a few words what the beam time is for').max(500),
   /** The displaced booking this request replaces, when rebooking from the offered alternatives. */
   rebookOf: uuid.optional(),
+  /** End stations (benches) fed by the chosen configuration, booked for the same interval. */
+  stationIds: z.array(uuid).max(8, 'At most 8 end stations').optional(),
 });
 
 function targetOf(v: { targetNm?: number; minNm?: number; maxNm?: number }): BookingTarget | null {
@@ -32,10 +34,11 @@ function targetOf(v: { targetNm?: number; minNm?: number; maxNm?: number }): Boo
 }
 
 /** `{instrumentId, configurationId, startsAt, endsAt, targetNm | {minNm, maxNm}, accountId, purpose}`. */
-function checkRequestShape(v: { targetNm?: number; minNm?: number; maxNm?: number; startsAt: string; endsAt: string }, ctx: z.RefinementCtx): void {
+function checkRequestShape(v: { targetNm?: number; minNm?: number; maxNm?: number; startsAt: string; endsAt: string; stationIds?: string[] }, ctx: z.RefinementCtx): void {
   if (!targetOf(v)) ctx.addIssue({ code: 'custom', path: ['targetNm'], message: 'Give either a target wavelength or a range (minNm and maxNm)' });
   if (v.minNm !== undefined && v.maxNm !== undefined && v.minNm > v.maxNm) ctx.addIssue({ code: 'custom', path: ['maxNm'], message: 'The range must run from short to long' });
   if (Date.parse(v.endsAt) <= Date.parse(v.startsAt)) ctx.addIssue({ code: 'custom', path: ['endsAt'], message: 'The end must be after the start' });
+  if (v.stationIds && new Set(v.stationIds).size !== v.stationIds.length) ctx.addIssue({ code: 'custom', path: ['stationIds'], message: 'Each end station once' });
 }
 
 export const createBookingInputSchema = bookingBase
@@ -84,6 +87,8 @@ export interface BookingDto {
   startsAt: string;
   endsAt: string;
   own: boolean;
+  /** The end stations (bench instrument ids) booked with it; busy/free like the booking itself. Always sent by the API. */
+  stationIds?: string[];
   detail: null | {
     userId: string;
     userName: string;

@@ -18,6 +18,7 @@ import { demoAccounts, demoEyewear, demoFacility, demoInstruments, demoOrganisat
 import { demoRateCard } from './demo-data';
 import { seedBilling } from '../../modules/billing/seed-billing';
 import { seedTraining } from './seed-training';
+import { seedStations } from '../../modules/stations/seed-stations';
 
 const addDays = (isoDate: string, days: number) => {
   const d = new Date(`${isoDate}T12:00:00Z`);
@@ -41,6 +42,7 @@ export async function seedDemo(db: DataSource, now = new Date()): Promise<'seede
     await seedTraining(m, localDate(now, demoFacility.timeZone));
     await seedTimeline(m, now);
     await seedUsageLogs(m);
+    await seedStations(m, now, demoFacility.timeZone);
     await seedBilling(m, now, demoRateCard);
     return 'seeded';
   });

@@ -13,6 +13,7 @@ import type { ReferenceCache, ReferenceData } from '../instruments/reference-dat
 import type { EyewearItem } from '../safety/eyewear-item.entity';
 import { checkOptics } from './optics-check';
 import { authorisationFor, sessionDays } from '../training/authorisation';
+import { earliestWithStationsFree, stationProblems } from '../stations/stations.service';
 import { occupyingBlocks, timelineOf, toEngineBlocks, type InstrumentTimeline } from './timeline.repository';
 
 export const bookingRoles = new Set(['collaborator', 'member', 'pi', 'staff']);
@@ -34,6 +35,8 @@ export interface BookingRequest {
   /** The booking's owner (the actor, or the owner when staff move a booking). */
   owner: SessionUser;
   excludeId?: string;
+  /** End stations booked with it (benches the configuration feeds). */
+  stationIds?: string[];
 }
 
 export interface Evaluation {
@@ -133,7 +136,14 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
     const horizonEnd = new Date(now.getTime() + p.horizonDays * 24 * HOUR);
     const blocks = await occupyingBlocks(m, new Date(req.startsAt.getTime() - 2 * 24 * HOUR), new Date(Math.max(horizonEnd.getTime(), req.endsAt.getTime()) + 2 * 24 * HOUR), req.instrumentId);
     const nm = 'targetNm' in req.target ? req.target.targetNm : (req.target.minNm + req.target.maxNm) / 2;
-    check = checkTimeline(toEngineBlocks(blocks, timeline.configurations), { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } }, { model: timeline.parsedModel, horizonEnd });
+    const engineBlocks = toEngineBlocks(blocks, timeline.configurations);
+    const candidate = { id: req.excludeId, start: req.startsAt, end: req.endsAt, state: { configurationKey: configuration.key, nm } };
+    check = checkTimeline(engineBlocks, candidate, { model: timeline.parsedModel, horizonEnd });
+    if (req.stationIds?.length) {
+      const ms = req.endsAt.getTime() - req.startsAt.getTime();
+      const onSource = (from: Date) => checkTimeline(engineBlocks, { ...candidate, start: from, end: new Date(from.getTime() + ms) }, { model: timeline.parsedModel, horizonEnd }).earliestStart;
+      check = { ...check, earliestStart: await earliestWithStationsFree(m, req.stationIds, req.excludeId, check.earliestStart, ms, horizonEnd, onSource) };
+    }
     for (const id of check.overlaps) overlapKinds.add(blocks.find((b) => b.id === id)?.kind ?? 'booking');
     const details = {
       neededMinutes: Math.max(check.before?.neededMinutes ?? 0, check.after?.neededMinutes ?? 0),
@@ -156,6 +166,10 @@ export async function evaluateBooking(m: EntityManager, cache: ReferenceCache, r
         });
       }
     }
+  }
+
+  if (configuration && req.stationIds?.length) {
+    problems.push(...await stationProblems(m, { stationIds: req.stationIds, configurationId: configuration.id, startsAt: req.startsAt, endsAt: req.endsAt, excludeBookingId: req.excludeId, earliestStart: check?.earliestStart }));
   }
 
   const status: 'requested' | 'approved' = external && req.owner.role !== 'staff' ? 'requested' : 'approved';
@@ -193,7 +207,7 @@ function noEyewearProblem(wavelengths: WavelengthCoverage<EyewearItem>[]): Probl
 
 /** Refuses with the most fundamental problem first: who you are, then the rules, then the timeline. */
 export function throwFirst(problems: Problem[]): void {
-  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'training_required', 'no_eyewear', 'overlap', 'changeover_gap'];
+  const order = ['forbidden', 'account_unusable', 'rule_violation', 'out_of_range', 'station_incompatible', 'training_required', 'no_eyewear', 'overlap', 'changeover_gap', 'station_busy'];
   const first = [...problems].sort((a, b) => order.indexOf(a.code) - order.indexOf(b.code))[0];
   if (first) throw new AppError(first.code, first.message, first.status, first.details);
 }

@@ -10,6 +10,8 @@ export interface BookingLookups {
   userName(id: string): string;
   organisationName(id: string): string;
   accountName(id: string): string;
+  /** The booking's end stations, when the booking's own read did not bring them. */
+  stationIds?(bookingId: string): string[];
 }
 
 export function canSeeDetail(viewer: SessionUser, block: Pick<TimelineBlock, 'organisationId'>): boolean {
@@ -30,6 +32,7 @@ export function toBookingDto(b: TimelineBlock, viewer: SessionUser, look: Bookin
     startsAt: b.startsAt.toISOString(),
     endsAt: b.endsAt.toISOString(),
     own: b.organisationId === viewer.organisationId,
+    stationIds: b.stationIds ?? look.stationIds?.(b.id) ?? [],
     detail: detail
       ? {
           userId: b.userId!,

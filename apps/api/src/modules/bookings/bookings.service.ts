@@ -13,7 +13,8 @@ import { auditSnapshot, canSeeDetail, facilityWideRoles, toBookingDto, toMainten
 import { evaluateBooking, throwFirst } from './booking-evaluation';
 import { loadLookups, lookupsOf } from './lookups';
 import { TimelineBlock } from './timeline-block.entity';
-import { insertBooking, occupyingBlocksNamed, oneAtATimePerInstrument, stateOf } from './timeline.repository';
+import { engineKind, insertBooking, occupyingBlocksNamed, oneAtATimePerInstrument, stateOf } from './timeline.repository';
+import { insertStations, stationIdsOf } from '../stations/stations.service';
 
 const REMINDER_QUEUE = 'booking-reminder';
 
@@ -56,6 +57,8 @@ export function bookingsService(ctx: AppContext) {
     const changeovers: ChangeoverBandDto[] = [];
     const byInstrument = new Map<string, TimelineBlock[]>();
     for (const b of blocks) {
+      // Viewing a bench, the bookings that include it are not its neighbours on the source: no changeover bands.
+      if (q.instrumentId && b.instrumentId !== q.instrumentId) continue;
       const list = byInstrument.get(b.instrumentId);
       if (list) list.push(b); else byInstrument.set(b.instrumentId, [b]);
     }
@@ -68,7 +71,7 @@ export function bookingsService(ctx: AppContext) {
         const next = list[i]!;
         const nextState = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!nextState) continue;
-        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, nextState, t.parsedModel);
+        const minutes = minutesNeededAfterBlock({ kind: engineKind(prev.kind), state: stateOf(prev, t.configurations) }, nextState, t.parsedModel);
         before.set(next.id, minutes);
         if (minutes <= 0) continue;
         changeovers.push({
@@ -117,8 +120,9 @@ export function bookingsService(ctx: AppContext) {
         decidedBy: keepsApproval ? rebookOf!.decidedBy : e.status === 'approved' ? actor.id : null,
         decidedAt: keepsApproval ? rebookOf!.decidedAt : e.status === 'approved' ? new Date() : null,
       });
+      saved.stationIds = await insertStations(m, saved.id, input.stationIds ?? []);
       if (rebookOf) await m.getRepository(TimelineBlock).update({ id: rebookOf.id }, { rebookedAs: saved.id });
-      await recordAudit(m, { actorUserId: actor.id, action: `booking.${status}`, entityType: 'booking', entityId: saved.id, after: { ...auditSnapshot(saved), ...(keepsApproval ? { rebookOf: rebookOf!.id, note: 'approval kept: rebooked into an offered slot' } : {}) }, requestId });
+      await recordAudit(m, { actorUserId: actor.id, action: `booking.${status}`, entityType: 'booking', entityId: saved.id, after: { ...auditSnapshot(saved), stationIds: saved.stationIds, ...(keepsApproval ? { rebookOf: rebookOf!.id, note: 'approval kept: rebooked into an offered slot' } : {}) }, requestId });
       await queueBookingMail(ctx, m, status === 'approved' ? 'approved' : 'received', saved, { recipient: actor, reference: e.reference, jobs: reminderJobs(saved) });
       // Every name the answer shows is already at hand: no lookups.
       const look = lookupsOf(e.reference, new Map([[actor.id, actor.name]]), new Map(e.account ? [[e.account.id, e.account.name]] : []));
@@ -182,6 +186,7 @@ export function bookingsService(ctx: AppContext) {
       const e = await evaluateBooking(m, ctx.reference, {
         instrumentId: b.instrumentId, configurationId: b.configurationId!, startsAt: new Date(input.startsAt), endsAt: new Date(input.endsAt),
         target: { minNm: b.targetMinNm!, maxNm: b.targetMaxNm! }, accountId: b.accountId!, owner, excludeId: b.id,
+        stationIds: (await stationIdsOf(m, [b.id])).get(b.id),
       }, { lock: true });
       // Staff may move inside the lead time; the physics, safety and timeline rules still hold.
       throwFirst(e.problems.filter((p) => !(p.code === 'rule_violation' && (p.details as { rule?: string })?.rule === 'lead_time')));

@@ -74,7 +74,7 @@ export async function loadInstrumentTimeline(m: EntityManager, instrumentId: str
 const CALENDAR_COLUMN_NAMES = ['id', 'instrument_id', 'kind', 'status', 'starts_at', 'ends_at', 'configuration_id', 'target_min_nm', 'target_max_nm',
   'account_id', 'user_id', 'organisation_id', 'purpose', 'reason', 'decline_reason', 'cancellation_fee_percent', 'alternatives', 'rebooked_as'];
 const BLOCK_COLUMN_NAMES = [...CALENDAR_COLUMN_NAMES, 'created_by', 'displaced_by', 'decided_by', 'decided_at', 'cancelled_by', 'cancelled_at',
-  'sequence', 'created_at', 'updated_at'];
+  'sequence', 'created_at', 'updated_at', 'parent_id'];
 /** The block's columns for a raw select; numeric wavelengths as float8 so they arrive as numbers. */
 const blockColumns = (alias: string, names = BLOCK_COLUMN_NAMES) => names
   .map((c) => (c.startsWith('target_') ? `${alias}.${c}::float8 AS ${c}` : `${alias}.${c}`)).join(', ');
@@ -89,16 +89,29 @@ function blockOf(r: BlockRow): TimelineBlock {
     userId: r.user_id, organisationId: r.organisation_id, purpose: r.purpose, reason: r.reason, declineReason: r.decline_reason,
     cancellationFeePercent: r.cancellation_fee_percent, createdBy: r.created_by, alternatives: r.alternatives, rebookedAs: r.rebooked_as,
     displacedBy: r.displaced_by, decidedBy: r.decided_by, decidedAt: r.decided_at, cancelledBy: r.cancelled_by, cancelledAt: r.cancelled_at,
-    sequence: r.sequence, createdAt: r.created_at, updatedAt: r.updated_at,
+    sequence: r.sequence, createdAt: r.created_at, updatedAt: r.updated_at, parentId: r.parent_id ?? null,
+    ...(r.station_ids ? { stationIds: r.station_ids } : {}),
   } as Partial<TimelineBlock>);
 }
 
+/**
+ * Raw: every row on the instrument's timeline (a bench's station rows included). Named (the calendar): bookings and
+ * maintenance with each booking's end stations aggregated in, station rows left out; for a bench, the bookings that
+ * include it stand in for its station rows.
+ */
 async function selectBlocks(m: EntityManager, from: Date, to: Date, instrumentId: string | undefined, withNames: boolean): Promise<BlockRow[]> {
-  const names = withNames ? ', u.name AS user_name, a.name AS account_name' : '';
+  const names = withNames
+    ? `, u.name AS user_name, a.name AS account_name,
+       ARRAY(SELECT s.instrument_id::text FROM timeline_blocks s WHERE s.parent_id = b.id ORDER BY s.instrument_id) AS station_ids`
+    : '';
   const joins = withNames ? 'LEFT JOIN users u ON u.id = b.user_id LEFT JOIN accounts a ON a.id = b.account_id' : '';
+  const onInstrument = !instrumentId ? '' : withNames
+    ? `AND (b.instrument_id = $4 OR b.id IN (SELECT s.parent_id FROM timeline_blocks s
+         WHERE s.instrument_id = $4 AND s.kind = 'station' AND s.starts_at < $2 AND s.ends_at > $1 AND s.status = ANY($3::text[])))`
+    : 'AND b.instrument_id = $4';
   return preparedQuery(m, `blocks${withNames ? '-named' : ''}${instrumentId ? '-instrument' : ''}`,
     `SELECT ${blockColumns('b', withNames ? CALENDAR_COLUMN_NAMES : BLOCK_COLUMN_NAMES)}${names} FROM timeline_blocks b ${joins}
-      WHERE b.starts_at < $2 AND b.ends_at > $1 AND b.status = ANY($3::text[]) ${instrumentId ? 'AND b.instrument_id = $4' : ''}
+      WHERE b.starts_at < $2 AND b.ends_at > $1 AND b.status = ANY($3::text[]) ${withNames ? "AND b.kind <> 'station'" : ''} ${onInstrument}
       ORDER BY b.starts_at, b.id`,
     instrumentId ? [from, to, [...occupyingStatuses], instrumentId] : [from, to, [...occupyingStatuses]],
   );
@@ -141,6 +154,20 @@ export async function insertBooking(m: EntityManager, v: NewBooking): Promise<Ti
   return blockOf(rows[0]!);
 }
 
+/** The engine knows bookings and maintenance: a station row holds its bench like a booking that leaves no source state behind. */
+export const engineKind = (kind: TimelineBlock['kind']): 'booking' | 'maintenance' => (kind === 'maintenance' ? 'maintenance' : 'booking');
+
 export function toEngineBlocks(blocks: TimelineBlock[], configurations: Map<string, Configuration>): TimelineBlockInput[] {
-  return blocks.map((b) => ({ id: b.id, kind: b.kind, start: b.startsAt, end: b.endsAt, state: b.kind === 'booking' ? stateOf(b, configurations) : null }));
+  return blocks.map((b) => ({ id: b.id, kind: engineKind(b.kind), start: b.startsAt, end: b.endsAt, state: b.kind === 'booking' ? stateOf(b, configurations) : null }));
+}
+
+/**
+ * Requested and approved bookings that use the instrument in [from, to), locked for update, oldest first: on a source,
+ * its own bookings; on a bench, the bookings that include it as an end station.
+ */
+export async function activeBookingsUsing(m: EntityManager, instrumentId: string, from: Date, to: Date): Promise<TimelineBlock[]> {
+  return m.getRepository(TimelineBlock).createQueryBuilder('b')
+    .where(`b.kind = 'booking' AND b.status IN ('requested', 'approved') AND b.starts_at < :to AND b.ends_at > :from`, { from, to })
+    .andWhere(`(b.instrument_id = :instrumentId OR b.id IN (SELECT s.parent_id FROM timeline_blocks s WHERE s.kind = 'station' AND s.instrument_id = :instrumentId))`, { instrumentId })
+    .orderBy('b.starts_at', 'ASC').setLock('pessimistic_write').getMany();
 }

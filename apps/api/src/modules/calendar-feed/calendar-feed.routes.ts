@@ -7,6 +7,7 @@ import { notFound } from '../../lib/errors/app-error';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { Configuration } from '../instruments/configuration.entity';
 import { Instrument } from '../instruments/instrument.entity';
+import { stationIdsOf } from '../stations/stations.service';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
 import { User } from '../users/user.entity';
 
@@ -39,13 +40,14 @@ export function calendarFeedRoutes(ctx: AppContext): RouteDef[] {
         const since = new Date(Date.now() - 30 * 86_400_000);
         const blocks = await ctx.db.getRepository(TimelineBlock).find({
           where: staffView
-            ? { status: In(['requested', 'approved', 'completed', 'scheduled']), endsAt: MoreThan(since) }
+            ? { kind: In(['booking', 'maintenance']), status: In(['requested', 'approved', 'completed', 'scheduled']), endsAt: MoreThan(since) }
             : { userId: user.id, kind: 'booking', status: In(['requested', 'approved', 'completed', 'cancelled', 'displaced']), endsAt: MoreThan(since) },
           order: { startsAt: 'ASC' },
         });
         const facility = await ctx.db.getRepository(FacilitySettings).findOneByOrFail({ id: 1 });
         const configs = new Map((await ctx.db.getRepository(Configuration).find()).map((c) => [c.id, c]));
         const instruments = new Map((await ctx.db.getRepository(Instrument).find()).map((i) => [i.id, i]));
+        const stations = await stationIdsOf(ctx.db.manager, blocks.filter((b) => b.kind === 'booking').map((b) => b.id));
         const ics = buildCalendar(blocks.map((b) => {
           const c = b.configurationId ? configs.get(b.configurationId) : undefined;
           const nm = b.targetMinNm === b.targetMaxNm ? `${b.targetMinNm} nm` : `${b.targetMinNm}–${b.targetMaxNm} nm`;
@@ -53,7 +55,7 @@ export function calendarFeedRoutes(ctx: AppContext): RouteDef[] {
             id: b.id, startsAt: b.startsAt, endsAt: b.endsAt, sequence: b.sequence,
             title: b.kind === 'maintenance' ? `Maintenance: ${b.reason}` : `Beam time: ${c?.name ?? 'booking'} ${nm}${b.status === 'requested' ? ' (awaiting approval)' : ''}`,
             description: b.kind === 'maintenance' ? (b.reason ?? '') : (b.purpose ?? ''),
-            location: `${facility.name} — ${instruments.get(b.instrumentId)?.name ?? ''}`,
+            location: `${facility.name} — ${[b.instrumentId, ...(stations.get(b.id) ?? [])].map((id) => instruments.get(id)?.name ?? '').join(', ')}`,
             status: b.status === 'requested' ? 'TENTATIVE' : b.status === 'cancelled' || b.status === 'displaced' ? 'CANCELLED' : 'CONFIRMED',
           };
         }), 'PUBLISH', `Femtoslot — ${user.name}`);

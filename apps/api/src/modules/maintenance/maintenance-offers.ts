@@ -4,6 +4,7 @@ import type { AppContext } from '../../lib/context';
 import { evaluateBooking } from '../bookings/booking-evaluation';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
 import { occupyingBlocks, stateOf, timelineOf, toEngineBlocks } from '../bookings/timeline.repository';
+import { stationIdsOf } from '../stations/stations.service';
 import { User } from '../users/user.entity';
 
 const DAY = 86_400_000;
@@ -11,7 +12,7 @@ const OFFERS_PER_BOOKING = 3;
 /** Candidates run through the full booking check per displaced booking before giving up on more offers. */
 const CHECKS_PER_BOOKING = 40;
 /** Problems that depend on the slot; the others (account, eyewear…) would refuse any slot alike. */
-const slotProblems = new Set(['rule_violation', 'overlap', 'changeover_gap', 'training_expired']);
+const slotProblems = new Set(['rule_violation', 'overlap', 'changeover_gap', 'training_required', 'station_busy']);
 
 /**
  * Offers each displaced booking up to three slots of its length and configuration. Every slot passes the same check a
@@ -28,6 +29,7 @@ export async function findOffers(ctx: AppContext, m: EntityManager, victims: Tim
   const horizonEnd = new Date(now + policies.horizonDays * DAY);
   const blocks = toEngineBlocks(await occupyingBlocks(m, new Date(now - DAY), new Date(horizonEnd.getTime() + DAY), instrumentId), timeline.configurations);
   const held: TimelineBlockInput[] = [];
+  const stations = await stationIdsOf(m, victims.map((v) => v.id));
   const owners = new Map((await m.getRepository(User).findBy(victims.flatMap((v) => (v.userId ? [{ id: v.userId }] : [])))).map((u) => [u.id, u]));
   for (const v of victims) {
     const state = stateOf(v, timeline.configurations);
@@ -45,7 +47,7 @@ export async function findOffers(ctx: AppContext, m: EntityManager, victims: Tim
     for (let checks = 0; !next.done && kept.length < OFFERS_PER_BOOKING && checks < CHECKS_PER_BOOKING; checks += 1) {
       const slot = next.value;
       const e = await evaluateBooking(m, ctx.reference, {
-        instrumentId, configurationId: v.configurationId, startsAt: slot.start, endsAt: slot.end, target, accountId: v.accountId,
+        instrumentId, configurationId: v.configurationId, stationIds: stations.get(v.id), startsAt: slot.start, endsAt: slot.end, target, accountId: v.accountId,
         owner: { id: owner.id, role: owner.role, organisationId: owner.organisationId, email: owner.email, name: owner.name },
       }, { lock: false });
       const passes = !e.problems.some((p) => slotProblems.has(p.code));

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { MaintenanceInput } from '@femtoslot/shared';
-import { In, LessThan, MoreThan, Not, type EntityManager } from 'typeorm';
+import { In, Not, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { AppError, notFound } from '../../lib/errors/app-error';
@@ -9,7 +9,7 @@ import { queueBookingMail } from '../bookings/booking-mail';
 import { auditSnapshot, toBookingDto, toMaintenanceDto } from '../bookings/booking.dto';
 import { loadLookups } from '../bookings/lookups';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { timelineOf } from '../bookings/timeline.repository';
+import { activeBookingsUsing, timelineOf } from '../bookings/timeline.repository';
 import { findOffers, warmupConflictAfter, type WarmupConflict } from './maintenance-offers';
 
 export function maintenanceService(ctx: AppContext) {
@@ -19,11 +19,8 @@ export function maintenanceService(ctx: AppContext) {
    */
   async function displaceUnder(m: EntityManager, actor: SessionUser, window: { id: string; instrumentId: string; startsAt: Date; endsAt: Date; reason: string }, requestId?: string) {
     const { timeline } = await timelineOf(ctx.reference, m, window.instrumentId, { lock: true });
-    const victims = await m.getRepository(TimelineBlock).find({
-      where: { instrumentId: window.instrumentId, kind: 'booking', status: In(['requested', 'approved']), startsAt: LessThan(window.endsAt), endsAt: MoreThan(window.startsAt) },
-      order: { startsAt: 'ASC' },
-      lock: { mode: 'pessimistic_write' },
-    });
+    // Bookings on this instrument, and bookings elsewhere that take this bench along as an end station.
+    const victims = await activeBookingsUsing(m, window.instrumentId, window.startsAt, window.endsAt);
     for (const v of victims) {
       const before = auditSnapshot(v);
       // displaced_by is linked once the window row exists (see linkVictims): the window is inserted after its victims step aside.
@@ -38,8 +35,12 @@ export function maintenanceService(ctx: AppContext) {
     if (victims.length) await m.getRepository(TimelineBlock).update({ id: In(victims.map((v) => v.id)) }, { displacedBy: windowId });
   }
 
-  async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], instrumentId: string, reason: string) {
-    const offers = await findOffers(ctx, m, victims, instrumentId);
+  async function offerAlternatives(m: EntityManager, victims: TimelineBlock[], reason: string) {
+    // A window on a bench displaces bookings of the source(s) feeding it: alternatives are found on each booking's own source.
+    const offers = new Map<string, { startsAt: string; endsAt: string }[]>();
+    for (const instrumentId of new Set(victims.map((v) => v.instrumentId))) {
+      for (const [id, o] of await findOffers(ctx, m, victims.filter((v) => v.instrumentId === instrumentId), instrumentId)) offers.set(id, o);
+    }
     for (const v of victims) {
       v.alternatives = offers.get(v.id) ?? [];
       await m.getRepository(TimelineBlock).update({ id: v.id }, { alternatives: v.alternatives });
@@ -62,7 +63,7 @@ export function maintenanceService(ctx: AppContext) {
       const saved = await m.getRepository(TimelineBlock).save(m.getRepository(TimelineBlock).create({ ...window, kind: 'maintenance', status: 'scheduled', createdBy: actor.id }));
       await linkVictims(m, victims, saved.id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.scheduled', entityType: 'maintenance', entityId: saved.id, after: auditSnapshot(saved), requestId });
-      await offerAlternatives(m, victims, window.instrumentId, input.reason);
+      await offerAlternatives(m, victims, input.reason);
       const warmupConflicts = await flagWarmup(m, actor, saved, requestId);
       const look = await loadLookups(m, victims);
       return { maintenance: toMaintenanceDto(saved), displaced: victims.map((v) => toBookingDto(v, actor, look)), warmupConflicts };
@@ -80,7 +81,7 @@ export function maintenanceService(ctx: AppContext) {
       await m.getRepository(TimelineBlock).save(w);
       await linkVictims(m, victims, id);
       await recordAudit(m, { actorUserId: actor.id, action: 'maintenance.updated', entityType: 'maintenance', entityId: id, before, after: auditSnapshot(w), requestId });
-      await offerAlternatives(m, victims, w.instrumentId, next.reason);
+      await offerAlternatives(m, victims, next.reason);
       const warmupConflicts = await flagWarmup(m, actor, w, requestId);
       const look = await loadLookups(m, victims);
       return { maintenance: toMaintenanceDto(w), displaced: victims.map((v) => toBookingDto(v, actor, look)), warmupConflicts };

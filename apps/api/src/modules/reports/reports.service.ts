@@ -3,7 +3,7 @@ import type { SessionUser } from '../../lib/auth/session';
 import type { AppContext } from '../../lib/context';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { TimelineBlock } from '../bookings/timeline-block.entity';
-import { stateOf, timelineOf } from '../bookings/timeline.repository';
+import { engineKind, stateOf, timelineOf } from '../bookings/timeline.repository';
 
 export interface ReportQuery {
   from: string;
@@ -100,7 +100,7 @@ export function reportsService(ctx: AppContext) {
         const prev = list[i - 1]!;
         const state = next.kind === 'booking' ? stateOf(next, t.configurations) : null;
         if (!state) continue;
-        const minutes = minutesNeededAfterBlock({ kind: prev.kind, state: stateOf(prev, t.configurations) }, state, model);
+        const minutes = minutesNeededAfterBlock({ kind: engineKind(prev.kind), state: stateOf(prev, t.configurations) }, state, model);
         const p = periodOf.get(next.id)!;
         sums.set(p, (sums.get(p) ?? 0) + minutes);
       }

@@ -136,6 +136,7 @@ export function CalendarPage() {
               calendar={data.configurationsLoading ? undefined : calendar.data}
               configurationName={data.configurationName}
               canEditMaintenance={isStaff}
+              stationName={data.instrumentName}
               onRangeChange={setRange}
               onSelectRange={openFromSelection}
               onBookingClick={setDetails}
@@ -194,6 +195,7 @@ export function CalendarPage() {
         viewerOrganisationId={user.organisation.id}
         windows={windows}
         configurationName={data.configurationName}
+        instrumentName={data.instrumentName}
       />
     </>
   );

@@ -24,6 +24,7 @@ export function useBeamTimeData() {
     (configurationId: string, outputKind: string) => configurations.find((c) => c.id === configurationId)?.name ?? defaultConfigurationName(outputKind),
     [configurations],
   );
+  const instrumentName = useCallback((instrumentId: string) => list.find((i) => i.id === instrumentId)?.name ?? 'End station', [list]);
   const configurationsError = perInstrument.find((q) => q.error)?.error?.message ?? null;
   return {
     facility,
@@ -34,5 +35,6 @@ export function useBeamTimeData() {
     configurationsLoading,
     configurationsError,
     configurationName,
+    instrumentName,
   };
 }

@@ -22,6 +22,7 @@ export interface BeamTimeCalendarProps {
   calendar: CalendarDto | undefined;
   configurationName: GridOptions['configurationName'];
   canEditMaintenance: boolean;
+  stationName?: GridOptions['stationName'];
   onRangeChange: (range: { from: string; to: string }) => void;
   onSelectRange: (range: { startsAt: string; endsAt: string }) => void;
   onBookingClick: (booking: BookingDto) => void;
@@ -112,14 +113,14 @@ function mountEvent(arg: EventMountArg) {
  * is memoised on the events and the zone, and the handlers reach the latest props through a ref.
  */
 export function BeamTimeCalendar(props: BeamTimeCalendarProps) {
-  const { calendar, configurationName, canEditMaintenance, timeZone } = props;
+  const { calendar, configurationName, canEditMaintenance, timeZone, stationName } = props;
   const latest = useRef(props);
   useLayoutEffect(() => {
     latest.current = props;
   });
   const events = useMemo(
-    () => (calendar ? toGridEvents(calendar, { configurationName, canEditMaintenance }) : []),
-    [calendar, configurationName, canEditMaintenance],
+    () => (calendar ? toGridEvents(calendar, { configurationName, canEditMaintenance, stationName }) : []),
+    [calendar, configurationName, canEditMaintenance, stationName],
   );
 
   const handlers = useMemo(() => {

@@ -34,6 +34,8 @@ export interface BookingDetailsProps {
   viewerOrganisationId: string;
   windows: CancellationWindows;
   configurationName: (configurationId: string, outputKind: string) => string;
+  /** instrument id → name, for the end stations */
+  instrumentName?: (instrumentId: string) => string;
 }
 
 export function BookingDetails(props: BookingDetailsProps) {
@@ -75,6 +77,11 @@ function BookingDetailsBody(props: BookingDetailsProps & { booking: BookingDto }
         <Row label="Status" testId="booking-status">
           {statusLabels[booking.status]}
         </Row>
+        {(booking.stationIds?.length ?? 0) > 0 && (
+          <Row label="End stations" testId="booking-stations">
+            {booking.stationIds!.map((id) => props.instrumentName?.(id) ?? id).join(', ')}
+          </Row>
+        )}
         <Row label="When">
           {formatInstant(booking.startsAt, timeZone)} – {formatInstant(booking.endsAt, timeZone).split(', ').pop()} ({formatMinutes(minutesBetween(booking.startsAt, booking.endsAt))},{' '}
           {timeZone})

@@ -52,6 +52,8 @@ function DisplacedBooking({ booking, timeZone, name }: { booking: BookingDto; ti
         accountId: detail.accountId,
         purpose: detail.purpose,
         rebookOf: booking.id,
+        // the alternatives were chosen to leave its end stations free too
+        ...(booking.stationIds?.length ? { stationIds: booking.stationIds } : {}),
       },
       {
         onSuccess: ({ booking: created }) =>

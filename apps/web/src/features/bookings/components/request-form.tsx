@@ -19,6 +19,7 @@ import { requestVerdict } from '../lib/request-verdict';
 import { RequestCheckPanel } from './request-check-panel';
 import { type RequestConfiguration, TargetFields, TimeFields, defaultTargetText } from './request-form-fields';
 import { SafetyStep } from './safety-step';
+import { StationPicker } from './station-picker';
 
 export interface RequestFormProps {
   open: boolean;
@@ -51,7 +52,9 @@ export function RequestForm(props: RequestFormProps) {
 }
 
 function initialValues({ instruments, configurations, accounts, initial, timeZone }: RequestFormProps): RequestFormValues {
-  const instrumentId = initial.instrumentId ?? instruments.find((i) => i.kind === 'source')?.id ?? instruments[0]?.id ?? '';
+  // Asked from a bench's calendar: the beam comes from the source, with that bench as an end station.
+  const bench = instruments.find((i) => i.id === initial.instrumentId && i.kind === 'bench');
+  const instrumentId = (bench ? undefined : initial.instrumentId) ?? instruments.find((i) => i.kind === 'source')?.id ?? instruments[0]?.id ?? '';
   const configuration = configurations.find((c) => c.instrumentId === instrumentId);
   const tomorrow = new Date(Date.now() + 86_400_000);
   tomorrow.setUTCMinutes(0, 0, 0);
@@ -70,6 +73,7 @@ function initialValues({ instruments, configurations, accounts, initial, timeZon
     endTime: end.time,
     accountId: accounts.find((a) => a.usable)?.id ?? '',
     purpose: '',
+    stationIds: bench ? [bench.id] : [],
   };
 }
 
@@ -188,6 +192,7 @@ function RequestFormBody(props: RequestFormProps) {
           </SelectField>
         </div>
         <TargetFields form={form} configuration={configuration} pumpNm={instrument?.pumpNm ?? null} />
+        <StationPicker form={form} />
       </section>
 
       <section className="space-y-4">

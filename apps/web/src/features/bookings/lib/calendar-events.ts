@@ -45,6 +45,14 @@ export interface GridOptions {
   configurationName: (configurationId: string, outputKind: string) => string;
   /** staff may drag and resize maintenance windows */
   canEditMaintenance: boolean;
+  /** instrument id → its name, for the end stations a booking takes along */
+  stationName?: (instrumentId: string) => string;
+}
+
+/** " · with Pump-probe station" for a booking that includes end stations. */
+export function stationsSuffix(stationIds: string[] | undefined, stationName: ((id: string) => string) | undefined): string {
+  if (!stationIds?.length || !stationName) return '';
+  return ` · with ${stationIds.map(stationName).join(', ')}`;
 }
 
 export function defaultConfigurationName(outputKind: string): string {
@@ -61,7 +69,7 @@ export function toGridEvents(calendar: CalendarDto, options: GridOptions): GridE
     const tentative = booking.status === 'requested';
     events.push({
       id: `booking:${booking.id}`,
-      title: bookingTitle(booking, name),
+      title: bookingTitle(booking, name) + stationsSuffix(booking.stationIds, options.stationName),
       start: booking.startsAt,
       end: booking.endsAt,
       classNames: [
@@ -69,6 +77,7 @@ export function toGridEvents(calendar: CalendarDto, options: GridOptions): GridE
         `fs-output-${booking.outputKind}`,
         ...(tentative ? ['fs-tentative'] : []),
         ...(booking.detail ? [] : ['fs-busy']),
+        ...(booking.stationIds?.length ? ['fs-with-station'] : []),
       ],
       // a request is drawn as a pale tint of its colour with a dashed outline (see .fs-tentative)
       backgroundColor: tentative ? `color-mix(in srgb, ${hex} 20%, var(--color-panel))` : hex,
@@ -118,6 +127,7 @@ export function eventDataAttributes(item: CalendarItem): Record<string, string> 
         status: item.booking.status,
         outputKind: item.booking.outputKind,
         visibility: item.booking.detail ? 'detail' : 'busy',
+        stations: (item.booking.stationIds ?? []).join(' '),
       };
     case 'maintenance':
       return { testid: 'maintenance-event', maintenanceId: item.maintenance.id };

@@ -21,6 +21,8 @@ export const requestFormSchema = z
     endTime: time,
     accountId: z.string().min(1, 'Choose an account'),
     purpose: z.string().trim().min(3, 'Say in a few words what the beam time is for').max(500),
+    /** End stations booked with the source (bench instrument ids). */
+    stationIds: z.array(z.string()).optional(),
   })
   .superRefine((v, ctx) => {
     if (!targetToNm('single', v.targetValue, '', v.unit)) ctx.addIssue({ code: 'custom', path: ['targetValue'], message: 'Give a positive number' });
@@ -56,6 +58,7 @@ export function buildRequest(values: Partial<RequestFormValues>, timeZone: strin
     accountId: values.accountId ?? '',
     purpose: values.purpose ?? '',
     ...(rebookOf ? { rebookOf } : {}),
+    ...(values.stationIds?.length ? { stationIds: [...values.stationIds] } : {}),
   };
   return { body, start, end, minutes };
 }
