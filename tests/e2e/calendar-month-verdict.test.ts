@@ -58,13 +58,14 @@ describe('calendar month view and request verdict in Chromium', () => {
   it('when a request overlaps a booking, then the form gives one refusing verdict with the earliest start in both zones and Send is off; a clear time fits', async () => {
     const day = quietSunday();
     const [y, m, d] = day.split('-').map(Number) as [number, number, number];
-    const member = await t.signIn('member@harrowpoint.test', 'femtoslot-demo');
-    const instruments = (await member.get('/api/instruments')).body.instruments as { id: string; name: string }[];
+    // The DFG session is booked by the collaborator, who holds the demo's DFG sign-off; the member (who lacks it) asks next to it.
+    const booker = await t.signIn('collaborator@harrowpoint.test', 'femtoslot-demo');
+    const instruments = (await booker.get('/api/instruments')).body.instruments as { id: string; name: string }[];
     const aurora = instruments.find((i) => i.name === 'Aurora line')!;
-    const configurations = (await member.get('/api/configurations').query({ instrumentId: aurora.id })).body.configurations as { id: string; key: string }[];
-    const accounts = (await member.get('/api/accounts')).body.accounts as { id: string; usable: boolean }[];
+    const configurations = (await booker.get('/api/configurations').query({ instrumentId: aurora.id })).body.configurations as { id: string; key: string }[];
+    const accounts = (await booker.get('/api/accounts')).body.accounts as { id: string; usable: boolean }[];
     const startsAt = zonedToUtc({ year: y, month: m, day: d, hour: 10, minute: 0 }, zone);
-    const existing = await member.post('/api/bookings').send({
+    const existing = await booker.post('/api/bookings').send({
       instrumentId: aurora.id, configurationId: configurations.find((c) => c.key === 'dfg')!.id, accountId: accounts.find((a) => a.usable)!.id,
       startsAt: startsAt.toISOString(), endsAt: new Date(startsAt.getTime() + 3 * 3_600_000).toISOString(), targetNm: 4500, purpose: 'Mid-IR reference run',
     });

@@ -94,7 +94,7 @@ describe('training journey in Chromium', () => {
     await panel.locator('[data-testid="signoff-row"][data-state="revoked"]').waitFor();
     await screenshot(officer, 'training-05-officer-revoked');
     await officer.getByTestId('courses-section').locator('summary').click();
-    const dfgRequirement = officer.locator('[data-testid="requirement-row"]', { hasText: 'DFG' });
+    const dfgRequirement = officer.locator('[data-testid="requirement-row"]', { hasText: 'DFG mid-IR · Aurora line' });
     await dfgRequirement.waitFor();
     expect(await dfgRequirement.locator('input[name="signoffLabel"]').inputValue()).toMatch(/supervised session/);
     await officer.getByTestId('courses-section').scrollIntoViewIfNeeded();

@@ -1,6 +1,7 @@
 import { z } from 'zod';
+import { calendarDateSchema } from '../time/iso-schemas';
 
-const isoDate = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use a date as YYYY-MM-DD');
+const isoDate = calendarDateSchema;
 const text = (max: number) => z.string().trim().max(max);
 
 export const courseInputSchema = z.object({

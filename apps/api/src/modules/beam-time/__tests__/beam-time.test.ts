@@ -57,7 +57,7 @@ async function groupWithSpend(year: number) {
 
 describe('group spend', () => {
   it('when a PI asks, then the group spend is billed journals plus unbilled confirmed usage and fees, per account, in minor units (sums by hand from the rate card)', async () => {
-    const g = await groupWithSpend(2026);
+    const g = await groupWithSpend(2023);
     const r = await g.pi.agent.get('/api/groups/spend');
     expect(r.status).toBe(200);
     // Billed 7 500 + 15 000 = 22 500; unbilled 6 000 + 7 500 = 13 500; total 36 000 cents = $360.00.
@@ -67,12 +67,12 @@ describe('group spend', () => {
     expect(r.body.unbilledLines.map((l: { amountMinor: number }) => l.amountMinor).sort()).toEqual([6_000, 7_500]);
 
     // From April on, March's journal is left out.
-    const april = await g.pi.agent.get('/api/groups/spend').query({ from: '2026-04' });
-    expect(april.body).toMatchObject({ billedMinor: 0, unbilledMinor: 13_500, totalMinor: 13_500, from: '2026-04' });
+    const april = await g.pi.agent.get('/api/groups/spend').query({ from: '2023-04' });
+    expect(april.body).toMatchObject({ billedMinor: 0, unbilledMinor: 13_500, totalMinor: 13_500, from: '2023-04' });
   });
 
   it('when members ask, then each sees only the spend of their own bookings; another group is 403 for members and PIs', async () => {
-    const g = await groupWithSpend(2027);
+    const g = await groupWithSpend(2024);
     const mine = await g.first.agent.get('/api/groups/spend');
     expect(mine.status).toBe(200);
     expect(mine.body).toMatchObject({ scope: 'own', billedMinor: 7_500, unbilledMinor: 6_000, totalMinor: 13_500 });
@@ -84,7 +84,7 @@ describe('group spend', () => {
   });
 
   it('when finance or staff ask, then they name any group (400 without one, 404 for an unknown one) and get its figures; bad queries are 400', async () => {
-    const g = await groupWithSpend(2028);
+    const g = await groupWithSpend(2025);
     const other = await g.finance.get('/api/groups/spend').query({ organisationId: g.industry.org.id });
     expect(other.body).toMatchObject({ scope: 'organisation', billedMinor: 0, unbilledMinor: 52_000, totalFormatted: '$520.00' });
     expect((await g.staff.get('/api/groups/spend').query({ organisationId: g.first.org.id })).body.totalMinor).toBe(36_000);

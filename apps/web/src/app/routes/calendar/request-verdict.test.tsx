@@ -7,7 +7,7 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 const org = { id: id(90), name: 'Kestrel Group', kind: 'internal' };
 const member = { id: id(91), email: 'm@x.test', name: 'Mo', role: 'member', active: true, organisation: org, createdAt: '2026-01-01T00:00:00Z', invitationPending: false };
 const source = id(1);
-const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOd: 5, retuneMinutesPerNm: 0.1 };
+const signal = { id: id(12), instrumentId: source, key: 'opa_signal', name: 'OPA signal', outputKind: 'opa_signal', minNm: 1150, maxNm: 1600, defaultNm: 1300, rateClass: 'standard', requiredOdBands: [{ minNm: 1150, maxNm: 1600, od: 5 }], retuneMinutesPerNm: 0.1 };
 const facilityZone = 'America/New_York';
 const earliest = new Date(Math.ceil(Date.now() / 3_600_000) * 3_600_000 + 50 * 3_600_000).toISOString();
 const isoInstant = /\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
@@ -26,8 +26,8 @@ function api(timeline: Timeline, problems: { code: string; message: string }[], 
     if (url.startsWith('/api/bookings?')) return ok({ bookings: [], maintenance: [], changeovers: [] });
     if (url === '/api/bookings/check') {
       return ok({
-        ok: problems.length === 0, problems, derived: {}, requiredOd: 5, eyewear: [{ id: id(300), label: 'NIR goggles' }], status: 'approved', cancellationPolicy: 'Free until 72 h before.',
-        onTable: [{ role: 'signal', minNm: 1300, maxNm: 1300 }], timeline,
+        ok: problems.length === 0, problems, derived: {}, eyewear: [{ id: id(300), label: 'NIR goggles' }], status: 'approved', cancellationPolicy: 'Free until 72 h before.',
+        onTable: [{ role: 'signal', minNm: 1300, maxNm: 1300 }], odByWavelength: [{ role: 'signal', minNm: 1300, maxNm: 1300, requiredOd: 5, eyewear: [{ id: id(300), label: 'NIR goggles' }] }], timeline,
       });
     }
     if (url === '/api/bookings' && method === 'POST') return create;
