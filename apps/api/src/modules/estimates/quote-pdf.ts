@@ -1,6 +1,7 @@
 import type { BookingEstimateDto } from '@femtoslot/shared/billing/estimate.types';
 import { formatMoney } from '@femtoslot/shared/billing/money';
 import { newPdf, type Doc } from '../../lib/pdf/document';
+import { writeHeading, writePricedLines, writeTotal } from '../../lib/pdf/statement-layout';
 import { writeText } from '../../lib/pdf/unicode-text';
 
 const windowWords = (w: BookingEstimateDto['cancellation']['windows'][number], tz: string) =>
@@ -22,12 +23,7 @@ function row(doc: Doc, label: string, value: string) {
 export function renderQuotePdf(q: BookingEstimateDto): Promise<Buffer> {
   const { doc, done } = newPdf({ Title: `Quote ${q.quoteNumber}`, Author: q.facilityName });
   const money = (minor: number) => formatMoney(minor, q.currency);
-  doc.fontSize(16);
-  writeText(doc, q.facilityName, 'bold');
-  doc.moveDown(0.3).fontSize(10).fillColor('#555');
-  writeText(doc, 'Quote for beam time — Femtoslot', 'regular');
-  doc.moveDown().fillColor('#000').fontSize(12);
-  writeText(doc, `Quote ${q.quoteNumber}`, 'bold');
+  writeHeading(doc, q.facilityName, 'Quote for beam time — Femtoslot', `Quote ${q.quoteNumber}`);
   doc.fontSize(10).moveDown(0.3);
   row(doc, 'Quote date', q.issuedOn);
   row(doc, 'Valid until', q.validUntil);
@@ -39,19 +35,8 @@ export function renderQuotePdf(q: BookingEstimateDto): Promise<Buffer> {
   row(doc, 'Beam time', `${q.startsAtLocal} to ${q.endsAtLocal} (${q.timeZone})`);
   row(doc, 'Rate card', `${q.rateCard.name}, in force from ${q.rateCard.effectiveFrom}`);
   doc.moveDown();
-  for (const line of q.lines) {
-    const y = doc.y;
-    writeText(doc, money(line.amountMinor), 'regular', { x: 440, y, width: 105, align: 'right' });
-    writeText(doc, line.label, 'bold', { x: 50, y, width: 380 });
-    doc.fillColor('#444');
-    writeText(doc, line.explanation, 'regular', { x: 50, y: doc.y, width: 380 });
-    doc.fillColor('#000').moveDown(0.6);
-  }
-  doc.moveTo(50, doc.y).lineTo(545, doc.y).stroke();
-  doc.moveDown(0.5);
-  const y = doc.y;
-  writeText(doc, 'Estimated total', 'bold', { x: 50, y, width: 380 });
-  writeText(doc, money(q.totalMinor), 'bold', { x: 440, y, width: 105, align: 'right' });
+  writePricedLines(doc, q.lines, money);
+  writeTotal(doc, 'Estimated total', money(q.totalMinor));
   doc.moveDown(1.2);
   writeText(doc, 'Cancellation terms', 'bold', { x: 50 });
   for (const w of q.cancellation.windows) {
