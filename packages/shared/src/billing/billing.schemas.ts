@@ -84,3 +84,24 @@ export interface AccountStatement {
   lines: PriceLine[];
   totalMinor: number;
 }
+
+/** Why a booking of the month is not on its statement. */
+export type LeftOutReason = 'unlogged' | 'log_not_confirmed' | 'not_approved';
+
+/** A booking in the month that the statement does not bill, and why (instants as ISO 8601 strings). */
+export interface LeftOutSession {
+  bookingId: string;
+  reason: LeftOutReason;
+  bookingStatus: string;
+  usageLogId: string | null;
+  startsAt: string;
+  endsAt: string;
+  instrumentName: string;
+  configurationName: string | null;
+  userId: string | null;
+  userName: string | null;
+  userEmail: string | null;
+  accountId: string | null;
+  accountName: string | null;
+  organisationName: string | null;
+}

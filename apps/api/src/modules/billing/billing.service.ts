@@ -1,4 +1,4 @@
-import { localDate, type BillingCloseInput } from '@femtoslot/shared';
+import { localDate, type BillingCloseInput, type LeftOutSession } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
 import { In } from 'typeorm';
 import { checkBillableMonth } from '@femtoslot/shared/billing/billing-month';
@@ -9,7 +9,7 @@ import { AppError, notFound } from '../../lib/errors/app-error';
 import { recordAudit } from '../audit/audit.service';
 import { FacilitySettings } from '../facility/facility-settings.entity';
 import { BillingJob, BillingPeriod, BillingPeriodAccount } from './billing.entities';
-import { leftOutSessions, type LeftOutSession } from './left-out';
+import { leftOutSessions } from './left-out';
 import { computeStatement, type AccountStatement } from './statement';
 
 export const BILLING_CLOSE_QUEUE = 'billing-close';

@@ -1,24 +1,5 @@
+import type { LeftOutReason, LeftOutSession } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
-
-export type LeftOutReason = 'unlogged' | 'log_not_confirmed' | 'not_approved';
-
-/** A booking in the month that the statement does not bill, and why. */
-export interface LeftOutSession {
-  bookingId: string;
-  reason: LeftOutReason;
-  bookingStatus: string;
-  usageLogId: string | null;
-  startsAt: string;
-  endsAt: string;
-  instrumentName: string;
-  configurationName: string | null;
-  userId: string | null;
-  userName: string | null;
-  userEmail: string | null;
-  accountId: string | null;
-  accountName: string | null;
-  organisationName: string | null;
-}
 
 export const leftOutReasonWords: Record<LeftOutReason, string> = {
   unlogged: 'no session log',

@@ -1,4 +1,4 @@
-import type { AccountStatement, PriceLine } from '@femtoslot/shared';
+import type { AccountStatement, LeftOutSession, PriceLine } from '@femtoslot/shared';
 
 /** Shapes of apps/api/src/modules/billing (billing.service.ts toPeriodDto / toJobDto / previewDto). */
 export type PeriodStatus = 'open' | 'closing' | 'closed';
@@ -27,30 +27,12 @@ export interface BillingJob {
   finishedAt: string | null;
 }
 
-export type { AccountStatement };
+export type { AccountStatement, LeftOutSession };
 
 export interface PeriodPreview {
   currency: string;
   accounts: AccountStatement[];
   totalMinor: number;
-}
-
-/** A booking of the month the statement does not bill (apps/api/src/modules/billing/left-out.ts). */
-export interface LeftOutSession {
-  bookingId: string;
-  reason: 'unlogged' | 'log_not_confirmed' | 'not_approved';
-  bookingStatus: string;
-  usageLogId: string | null;
-  startsAt: string;
-  endsAt: string;
-  instrumentName: string;
-  configurationName: string | null;
-  userId: string | null;
-  userName: string | null;
-  userEmail: string | null;
-  accountId: string | null;
-  accountName: string | null;
-  organisationName: string | null;
 }
 
 export interface PeriodDetail {
