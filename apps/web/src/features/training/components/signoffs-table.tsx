@@ -1,7 +1,6 @@
 import type { SignoffDto } from '@femtoslot/shared';
-import { Button } from '../../../components/ui/button';
 import { TableShell } from '../../../components/ui/table-shell';
-import { HoldingStatePill } from './holding-state-pill';
+import { HoldingStateCell, RevokeCell, RevokeHeader } from './holding-state-pill';
 
 export function SignoffsTable({ signoffs, onRevoke }: { signoffs: SignoffDto[]; onRevoke?: (signoff: SignoffDto) => void }) {
   return (
@@ -13,7 +12,7 @@ export function SignoffsTable({ signoffs, onRevoke }: { signoffs: SignoffDto[]; 
           <th className="px-4 py-2">Until</th>
           <th className="px-4 py-2">State</th>
           <th className="px-4 py-2">Granted by</th>
-          {onRevoke && <th className="px-4 py-2"><span className="sr-only">Actions</span></th>}
+          {onRevoke && <RevokeHeader />}
         </tr>
       </thead>
       <tbody>
@@ -25,16 +24,9 @@ export function SignoffsTable({ signoffs, onRevoke }: { signoffs: SignoffDto[]; 
             </td>
             <td className="px-4 py-2 tabular-nums">{s.grantedOn}</td>
             <td className="px-4 py-2 tabular-nums">{s.expiresOn ?? 'No expiry'}</td>
-            <td className="px-4 py-2">
-              <HoldingStatePill state={s.state} />
-              {s.revokedReason && <p className="mt-1 text-xs text-ink-muted">{s.revokedReason} — {s.revokedByName}</p>}
-            </td>
+            <HoldingStateCell holding={s} />
             <td className="px-4 py-2 text-ink-muted">{s.grantedByName}</td>
-            {onRevoke && (
-              <td className="px-4 py-2 text-right">
-                {s.state !== 'revoked' && <Button size="sm" variant="danger" onClick={() => onRevoke(s)}>Revoke</Button>}
-              </td>
-            )}
+            {onRevoke && <RevokeCell state={s.state} onRevoke={() => onRevoke(s)} />}
           </tr>
         ))}
       </tbody>

@@ -1,7 +1,6 @@
 import type { TrainingRecordDto } from '@femtoslot/shared';
-import { Button } from '../../../components/ui/button';
 import { TableShell } from '../../../components/ui/table-shell';
-import { HoldingStatePill } from './holding-state-pill';
+import { HoldingStateCell, RevokeCell, RevokeHeader } from './holding-state-pill';
 
 export function TrainingRecordsTable({ records, onRevoke }: { records: TrainingRecordDto[]; onRevoke?: (record: TrainingRecordDto) => void }) {
   return (
@@ -13,7 +12,7 @@ export function TrainingRecordsTable({ records, onRevoke }: { records: TrainingR
           <th className="px-4 py-2">Expires</th>
           <th className="px-4 py-2">State</th>
           <th className="px-4 py-2">Recorded by</th>
-          {onRevoke && <th className="px-4 py-2"><span className="sr-only">Actions</span></th>}
+          {onRevoke && <RevokeHeader />}
         </tr>
       </thead>
       <tbody>
@@ -22,16 +21,9 @@ export function TrainingRecordsTable({ records, onRevoke }: { records: TrainingR
             <td className="px-4 py-2 font-semibold">{r.courseName}</td>
             <td className="px-4 py-2 tabular-nums">{r.completedOn}</td>
             <td className="px-4 py-2 tabular-nums">{r.expiresOn}</td>
-            <td className="px-4 py-2">
-              <HoldingStatePill state={r.state} />
-              {r.revokedReason && <p className="mt-1 text-xs text-ink-muted">{r.revokedReason} — {r.revokedByName}</p>}
-            </td>
+            <HoldingStateCell holding={r} />
             <td className="px-4 py-2 text-ink-muted">{r.recordedByName ?? '—'}</td>
-            {onRevoke && (
-              <td className="px-4 py-2 text-right">
-                {r.state !== 'revoked' && <Button size="sm" variant="danger" onClick={() => onRevoke(r)}>Revoke</Button>}
-              </td>
-            )}
+            {onRevoke && <RevokeCell state={r.state} onRevoke={() => onRevoke(r)} />}
           </tr>
         ))}
       </tbody>
