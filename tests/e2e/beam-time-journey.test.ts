@@ -1,19 +1,15 @@
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let collaboratorBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-let staffBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  [collaboratorBrowser, staffBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
-});
-afterAll(async () => {
-  await collaboratorBrowser?.close();
-  await staffBrowser?.close();
-  await t?.close();
+let collaboratorBrowser: TestBrowser;
+let staffBrowser: TestBrowser;
+browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
+  t = api;
+  collaboratorBrowser = b0!;
+  staffBrowser = b1!;
 });
 
 /** A Saturday at least six days ahead, as YYYY-MM-DD in the facility's zone: the demo seed books weekdays only. */
@@ -24,12 +20,6 @@ function freeSaturday(): string {
     if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sat') return fmt.format(day);
   }
   throw new Error('no Saturday found');
-}
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, t) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(t))?.value ?? '', text);
-  expect(value).not.toBe('');
-  await page.selectOption(selector, value);
 }
 
 describe('beam-time journey in Chromium', () => {

@@ -1,19 +1,13 @@
 import { zonedToUtc } from '@femtoslot/shared';
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+let browser: TestBrowser;
+browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 const zone = 'America/New_York'; // the demo facility's zone
 
@@ -25,12 +19,6 @@ function quietSunday(): string {
     if (new Intl.DateTimeFormat('en-US', { timeZone: zone, weekday: 'short' }).format(day) === 'Sun') return fmt.format(day);
   }
   throw new Error('no Sunday found');
-}
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, x) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(x))?.value ?? '', text);
-  expect(value).not.toBe('');
-  await page.selectOption(selector, value);
 }
 
 describe('calendar month view and request verdict in Chromium', () => {

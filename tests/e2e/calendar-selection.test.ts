@@ -1,19 +1,16 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let staffBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-let collaboratorBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  [staffBrowser, collaboratorBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
-});
-afterAll(async () => {
-  await staffBrowser?.close();
-  await collaboratorBrowser?.close();
-  await t?.close();
+let staffBrowser: TestBrowser;
+let collaboratorBrowser: TestBrowser;
+browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
+  t = api;
+  staffBrowser = b0!;
+  collaboratorBrowser = b1!;
 });
 
 /** A Sunday at least eight days ahead, as YYYY-MM-DD in the facility's zone: the demo seed books weekdays only. */

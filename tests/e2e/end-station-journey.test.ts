@@ -1,28 +1,15 @@
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+let browser: TestBrowser;
+browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 const zone = 'America/New_York';
 const localDay = (d: Date) => new Intl.DateTimeFormat('en-CA', { timeZone: zone }).format(d);
 const localTime = (d: Date) => new Intl.DateTimeFormat('en-GB', { timeZone: zone, hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(d);
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, t) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(t))?.value ?? '', text);
-  expect(value).not.toBe('');
-  await page.selectOption(selector, value);
-}
 
 describe('end stations in Chromium', () => {
   it('when a member books the pump-probe station with the source, then only compatible stations are offered, a busy station is flagged, and the bench calendar shows the booking', async () => {

@@ -1,28 +1,14 @@
 import { copyFile, readFile } from 'node:fs/promises';
 import path from 'node:path';
-import type { Page } from 'playwright-core';
 import { PDFParse } from 'pdf-parse';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '@femtoslot/api/src/db/seed/seed';
-import { scratchDatabase } from '@femtoslot/api/src/test-support/scratch-database';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  // Its own database with the demo scenario, so the demo rate card is the one in force.
-  scratch = await scratchDatabase();
-  t = await startTestApi({ DATABASE_URL: scratch.url, WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  await seedDemo(t.api.ctx.db);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-  await scratch?.drop();
-});
+let browser: TestBrowser;
+browserJourney({ browsers: 1, scratch: true }, (api, [b]) => { t = api; browser = b!; });
 
 /** A Saturday at least six days ahead (facility zone): the demo seed books weekdays only, so nothing comes before it that day. */
 function freeSaturday(): string {
@@ -32,11 +18,6 @@ function freeSaturday(): string {
     if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sat') return fmt.format(day);
   }
   throw new Error('no Saturday found');
-}
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, s) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(s))?.value ?? '', text);
-  await page.selectOption(selector, value);
 }
 
 describe('price estimate in Chromium', () => {

@@ -1,25 +1,22 @@
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
 import { TimelineBlock } from '@femtoslot/api/src/modules/bookings/timeline-block.entity';
 import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
 import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
 import { User } from '@femtoslot/api/src/modules/users/user.entity';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let memberBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-let piBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  [memberBrowser, piBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
-});
-afterAll(async () => {
-  await memberBrowser?.close();
-  await piBrowser?.close();
-  await t?.close();
+let memberBrowser: TestBrowser;
+let piBrowser: TestBrowser;
+browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
+  t = api;
+  memberBrowser = b0!;
+  piBrowser = b1!;
 });
 
 /** Two upcoming bookings of the demo member, at night in New York, weeks ahead (clear of the seeded day-time sessions). */

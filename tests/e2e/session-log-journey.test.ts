@@ -1,26 +1,23 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { gaussianTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
 import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
 import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
 import { User } from '@femtoslot/api/src/modules/users/user.entity';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let memberBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-let staffBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  [memberBrowser, staffBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
-});
-afterAll(async () => {
-  await memberBrowser?.close();
-  await staffBrowser?.close();
-  await t?.close();
+let memberBrowser: TestBrowser;
+let staffBrowser: TestBrowser;
+browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
+  t = api;
+  memberBrowser = b0!;
+  staffBrowser = b1!;
 });
 
 /** A Gaussian intensity autocorrelation for a 90 fs pulse: AC FWHM = √2 × pulse FWHM (Diels & Rudolph). */

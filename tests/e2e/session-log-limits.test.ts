@@ -1,25 +1,19 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { interferometricTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
 import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
 import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
 import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
 import { User } from '@femtoslot/api/src/modules/users/user.entity';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+let browser: TestBrowser;
+browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 /** A fringe-resolved (interferometric) autocorrelation of a 30 fs pulse at 800 nm, 8 : 1 (Diels & Rudolph). */
 function fringeFile(): string {

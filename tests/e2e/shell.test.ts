@@ -1,18 +1,12 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { describe, expect, it } from 'vitest';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+let browser: TestBrowser;
+browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 async function navAreas(page: Page): Promise<string[]> {
   const nav = page.locator('nav[aria-label="Main"]');

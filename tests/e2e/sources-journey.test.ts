@@ -1,25 +1,12 @@
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { hoursFromNow, makeBooker, makeInstrument, plusHours, plusMinutes } from '@femtoslot/api/src/test-support/booking-fixture';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, s) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(s))?.value ?? '', text);
-  expect(value).not.toBe('');
-  await page.selectOption(selector, value);
-}
+let browser: TestBrowser;
+browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 describe('sources & stations in Chromium', () => {
   it('when staff slow a changeover, then the preview names the booking it would squeeze before saving; a new bench can be added', async () => {

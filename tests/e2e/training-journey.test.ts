@@ -1,20 +1,17 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { makeBooker } from '@femtoslot/api/src/test-support/booking-fixture';
-import { startTestApi, type TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { launchBrowser, screenshot, signInThroughForm } from '../support/browser';
+import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
+import { screenshot, signInThroughForm } from '../support/browser';
+import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
-let memberBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-let officerBrowser: Awaited<ReturnType<typeof launchBrowser>>;
-beforeAll(async () => {
-  t = await startTestApi({ WEB_DIST: process.env.TEST_WEB_DIST ?? '' });
-  [memberBrowser, officerBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
-});
-afterAll(async () => {
-  await memberBrowser?.close();
-  await officerBrowser?.close();
-  await t?.close();
+let memberBrowser: TestBrowser;
+let officerBrowser: TestBrowser;
+browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
+  t = api;
+  memberBrowser = b0!;
+  officerBrowser = b1!;
 });
 
 /** A Sunday at least eight days ahead in the facility's zone (the demo seed books weekdays only). */
@@ -26,12 +23,6 @@ function freeSunday(): string {
     }
   }
   throw new Error('no Sunday found');
-}
-
-async function selectOptionContaining(page: Page, selector: string, text: string) {
-  const value = await page.$eval(selector, (el, t) => [...(el as HTMLSelectElement).options].find((o) => o.textContent?.includes(t))?.value ?? '', text);
-  expect(value).not.toBe('');
-  await page.selectOption(selector, value);
 }
 
 const dfgRow = (page: Page) => page.locator('[data-testid="authorisation-row"]', { hasText: 'DFG' }).filter({ hasText: 'Aurora line' });
