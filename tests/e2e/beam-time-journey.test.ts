@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { screenshot, signInThroughForm } from '../support/browser';
-import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
+import { browserJourney, facilityWeekdayAhead, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
 let collaboratorBrowser: TestBrowser;
@@ -13,14 +13,7 @@ browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
 });
 
 /** A Saturday at least six days ahead, as YYYY-MM-DD in the facility's zone: the demo seed books weekdays only. */
-function freeSaturday(): string {
-  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/New_York' });
-  for (let d = 6; d < 30; d++) {
-    const day = new Date(Date.now() + d * 86_400_000);
-    if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sat') return fmt.format(day);
-  }
-  throw new Error('no Saturday found');
-}
+const freeSaturday = () => facilityWeekdayAhead('Sat', 6);
 
 describe('beam-time journey in Chromium', () => {
   it('when a collaborator requests a DFG slot, staff approve it, then block maintenance over it, then the collaborator rebooks an alternative', async () => {

@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { screenshot, signInThroughForm } from '../support/browser';
-import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
+import { browserJourney, facilityWeekdayAhead, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
 let browser: TestBrowser;
@@ -12,14 +12,7 @@ browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 const zone = 'America/New_York'; // the demo facility's zone
 
 /** The second Sunday at least fifteen days ahead (facility zone): the demo seed books weekdays, other browser tests nearer Sundays. */
-function quietSunday(): string {
-  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: zone });
-  for (let d = 15; d < 40; d++) {
-    const day = new Date(Date.now() + d * 86_400_000);
-    if (new Intl.DateTimeFormat('en-US', { timeZone: zone, weekday: 'short' }).format(day) === 'Sun') return fmt.format(day);
-  }
-  throw new Error('no Sunday found');
-}
+const quietSunday = () => facilityWeekdayAhead('Sun', 15);
 
 describe('calendar month view and request verdict in Chromium', () => {
   it('when the month view opens on December 2026, then the columns are named Mon to Sun and the first cell is 30 November', async () => {

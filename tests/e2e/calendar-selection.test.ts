@@ -2,7 +2,7 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { screenshot, signInThroughForm } from '../support/browser';
-import { browserJourney, type TestBrowser } from '../support/journey';
+import { browserJourney, facilityWeekdayAhead, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
 let staffBrowser: TestBrowser;
@@ -14,14 +14,7 @@ browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
 });
 
 /** A Sunday at least eight days ahead, as YYYY-MM-DD in the facility's zone: the demo seed books weekdays only. */
-function freeSunday(): string {
-  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/New_York' });
-  for (let d = 8; d < 30; d++) {
-    const day = new Date(Date.now() + d * 86_400_000);
-    if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sun') return fmt.format(day);
-  }
-  throw new Error('no Sunday found');
-}
+const freeSunday = () => facilityWeekdayAhead('Sun', 8);
 
 /** Drags 13:00–15:00 on `day` in the week grid, paging forward until that day is shown. */
 async function dragAfternoon(page: Page, day: string) {

@@ -4,21 +4,14 @@ import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { screenshot, signInThroughForm } from '../support/browser';
-import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
+import { browserJourney, facilityWeekdayAhead, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
 let browser: TestBrowser;
 browserJourney({ browsers: 1, scratch: true }, (api, [b]) => { t = api; browser = b!; });
 
 /** A Saturday at least six days ahead (facility zone): the demo seed books weekdays only, so nothing comes before it that day. */
-function freeSaturday(): string {
-  const fmt = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/New_York' });
-  for (let d = 6; d < 30; d++) {
-    const day = new Date(Date.now() + d * 86_400_000);
-    if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sat') return fmt.format(day);
-  }
-  throw new Error('no Saturday found');
-}
+const freeSaturday = () => facilityWeekdayAhead('Sat', 6);
 
 describe('price estimate in Chromium', () => {
   it('when a collaborator fills in a DFG request, then the form shows the charge and the cancellation fees, and the quote PDF downloads with them', async () => {

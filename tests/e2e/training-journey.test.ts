@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { makeBooker } from '@femtoslot/api/src/test-support/booking-fixture';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
 import { screenshot, signInThroughForm } from '../support/browser';
-import { browserJourney, selectOptionContaining, type TestBrowser } from '../support/journey';
+import { browserJourney, facilityWeekdayAhead, selectOptionContaining, type TestBrowser } from '../support/journey';
 
 let t: TestApi;
 let memberBrowser: TestBrowser;
@@ -15,15 +15,7 @@ browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
 });
 
 /** A Sunday at least eight days ahead in the facility's zone (the demo seed books weekdays only). */
-function freeSunday(): string {
-  for (let d = 8; d < 30; d++) {
-    const day = new Date(Date.now() + d * 86_400_000);
-    if (new Intl.DateTimeFormat('en-US', { timeZone: 'America/New_York', weekday: 'short' }).format(day) === 'Sun') {
-      return new Intl.DateTimeFormat('en-CA', { timeZone: 'America/New_York' }).format(day);
-    }
-  }
-  throw new Error('no Sunday found');
-}
+const freeSunday = () => facilityWeekdayAhead('Sun', 8);
 
 const dfgRow = (page: Page) => page.locator('[data-testid="authorisation-row"]', { hasText: 'DFG' }).filter({ hasText: 'Aurora line' });
 

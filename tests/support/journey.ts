@@ -43,3 +43,16 @@ export async function selectOptionContaining(page: Page, selector: string, text:
   expect(value).not.toBe('');
   await page.selectOption(selector, value);
 }
+
+/** The demo facility's zone (America/New_York), where the seed's weekday bookings fall. */
+export const FACILITY_ZONE = 'America/New_York';
+
+/** The first `weekday` at least `minDays` ahead, as YYYY-MM-DD in the facility's zone. */
+export function facilityWeekdayAhead(weekday: 'Sat' | 'Sun', minDays: number): string {
+  const weekdayOf = new Intl.DateTimeFormat('en-US', { timeZone: FACILITY_ZONE, weekday: 'short' });
+  for (let d = minDays; d < minDays + 7; d++) {
+    const day = new Date(Date.now() + d * 86_400_000);
+    if (weekdayOf.format(day) === weekday) return new Intl.DateTimeFormat('en-CA', { timeZone: FACILITY_ZONE }).format(day);
+  }
+  throw new Error(`no ${weekday} found`);
+}
