@@ -1,15 +1,9 @@
-import { mkdirSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { gaussianTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
-import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
-import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
-import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
-import { User } from '@femtoslot/api/src/modules/users/user.entity';
 import { screenshot, signInThroughForm } from '../support/browser';
 import { browserJourney, type TestBrowser } from '../support/journey';
+import { fixtureFile, memberPastFundamentalSession } from '../support/session-fixtures';
 
 let t: TestApi;
 let memberBrowser: TestBrowser;
@@ -21,23 +15,11 @@ browserJourney({ browsers: 2 }, (api, [b0, b1]) => {
 });
 
 /** A Gaussian intensity autocorrelation for a 90 fs pulse: AC FWHM = √2 × pulse FWHM (Diels & Rudolph). */
-function traceFile(): string {
-  const dir = path.join(process.env.ARTIFACTS_DIR ?? 'artifacts', 'fixtures');
-  mkdirSync(dir, { recursive: true });
-  const file = path.join(dir, 'ac-trace-90fs.csv');
-  writeFileSync(file, traceCsv(gaussianTrace(90, { baseline: 0.03, samplesPerFwhm: 30 })));
-  return file;
-}
+const traceFile = () => fixtureFile('ac-trace-90fs.csv', traceCsv(gaussianTrace(90, { baseline: 0.03, samplesPerFwhm: 30 })));
 
 describe('session-log journey in Chromium', () => {
   it('when a member logs a session with an autocorrelation trace, then the pulse is computed, staff confirm it, and the reports draw their charts', async () => {
-    const db = t.api.ctx.db;
-    const member = await db.getRepository(User).findOneByOrFail({ email: 'member@harrowpoint.test' });
-    const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
-    const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
-    const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
-    const start = await freePastSlot(db, aurora.id, 1, new Date(Date.now() - 3_600_000));
-    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: start, hours: 1, nm: 800 });
+    const { session } = await memberPastFundamentalSession(t);
 
     const page = await memberBrowser.context.newPage();
     await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');

@@ -1,38 +1,20 @@
-import { mkdirSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { TestApi } from '@femtoslot/api/src/test-support/test-api';
-import { freePastSlot, pastSession } from '@femtoslot/api/src/test-support/past-session';
 import { interferometricTrace, traceCsv } from '@femtoslot/api/src/test-support/traces';
-import { Account } from '@femtoslot/api/src/modules/accounts/account.entity';
-import { Configuration } from '@femtoslot/api/src/modules/instruments/configuration.entity';
-import { Instrument } from '@femtoslot/api/src/modules/instruments/instrument.entity';
-import { User } from '@femtoslot/api/src/modules/users/user.entity';
 import { screenshot, signInThroughForm } from '../support/browser';
 import { browserJourney, type TestBrowser } from '../support/journey';
+import { fixtureFile, memberPastFundamentalSession } from '../support/session-fixtures';
 
 let t: TestApi;
 let browser: TestBrowser;
 browserJourney({ browsers: 1 }, (api, [b]) => { t = api; browser = b!; });
 
 /** A fringe-resolved (interferometric) autocorrelation of a 30 fs pulse at 800 nm, 8 : 1 (Diels & Rudolph). */
-function fringeFile(): string {
-  const dir = path.join(process.env.ARTIFACTS_DIR ?? 'artifacts', 'fixtures');
-  mkdirSync(dir, { recursive: true });
-  const file = path.join(dir, 'iac-fringes-800nm.csv');
-  writeFileSync(file, traceCsv(interferometricTrace(30, 800), { delayDigits: 4 }));
-  return file;
-}
+const fringeFile = () => fixtureFile('iac-fringes-800nm.csv', traceCsv(interferometricTrace(30, 800), { delayDigits: 4 }));
 
 describe('session-log limits in Chromium', () => {
   it('when a member drops a fringe-resolved trace and types times outside the window, then the page says why, draws the trace and stores nothing', async () => {
-    const db = t.api.ctx.db;
-    const member = await db.getRepository(User).findOneByOrFail({ email: 'member@harrowpoint.test' });
-    const account = await db.getRepository(Account).findOneByOrFail({ organisationId: member.organisationId });
-    const aurora = await db.getRepository(Instrument).findOneByOrFail({ name: 'Aurora line' });
-    const fundamental = await db.getRepository(Configuration).findOneByOrFail({ instrumentId: aurora.id, key: 'fundamental' });
-    const start = await freePastSlot(db, aurora.id, 1, new Date(Date.now() - 3_600_000));
-    const session = await pastSession(t, { instrumentId: aurora.id, configuration: fundamental, accountId: account.id, userId: member.id, organisationId: member.organisationId, startsAt: start, hours: 1, nm: 800 });
+    const { db, session } = await memberPastFundamentalSession(t);
 
     const page = await browser.context.newPage();
     await signInThroughForm(page, t.api.url, 'member@harrowpoint.test');
