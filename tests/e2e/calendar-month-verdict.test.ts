@@ -91,5 +91,5 @@ describe('calendar month view and request verdict in Chromium', () => {
     expect(await page.getByTestId('submit-request').isDisabled()).toBe(false);
     await screenshot(page, 'request-verdict-fits');
     await page.close();
-  });
+  }, 120_000);
 });

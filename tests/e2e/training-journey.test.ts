@@ -81,7 +81,7 @@ describe('training journey in Chromium', () => {
     await dfgRequirement.waitFor();
     expect(await dfgRequirement.locator('input[name="signoffLabel"]').inputValue()).toMatch(/supervised session/);
     await officer.getByTestId('courses-section').scrollIntoViewIfNeeded();
-    await screenshot(officer, 'training-07-officer-courses-and-requirements');
+    await screenshot(officer, 'training-07-officer-courses-and-requirements', { fullPage: false });
 
     await member.reload();
     await dfgRow(member).waitFor();

@@ -19,11 +19,12 @@ export async function launchBrowser(): Promise<{ context: BrowserContext; close(
   };
 }
 
-export async function screenshot(page: Page, name: string): Promise<string> {
+/** Full page by default; `fullPage: false` for pages whose length grows with the shared test database (lists of every configuration). */
+export async function screenshot(page: Page, name: string, options: { fullPage?: boolean } = {}): Promise<string> {
   const dir = path.join(process.env.ARTIFACTS_DIR ?? path.join(process.cwd(), 'artifacts'), 'screenshots');
   mkdirSync(dir, { recursive: true });
   const file = path.join(dir, `${name}.png`);
-  await page.screenshot({ path: file, fullPage: true });
+  await page.screenshot({ path: file, fullPage: options.fullPage ?? true });
   return file;
 }
 
