@@ -95,8 +95,8 @@ export function FacilityPoliciesForm({ canEdit }: { canEdit: boolean }) {
                 facility is installed and is not editable here.
               </p>
               <div className="mt-2 grid gap-4 sm:grid-cols-2">
-                <TextField label="Start (HH:MM)" type="time" error={err('workingHours.start')?.message} data-testid="policy-workingHours.start" {...register('workingHours.start')} />
-                <TextField label="End (HH:MM)" type="time" error={err('workingHours.end')?.message} data-testid="policy-workingHours.end" {...register('workingHours.end')} />
+                <TextField label="Start (facility time)" type="time" error={err('workingHours.start')?.message} data-testid="policy-workingHours.start" {...register('workingHours.start')} />
+                <TextField label="End (facility time)" type="time" error={err('workingHours.end')?.message} data-testid="policy-workingHours.end" {...register('workingHours.end')} />
               </div>
               <Controller
                 control={control}
