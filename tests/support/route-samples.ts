@@ -64,6 +64,7 @@ export const bodySamples: Record<string, Record<string, unknown>> = {
   'post /training/signoffs': { userId: id, configurationId: id, grantedOn: '2030-03-04', expiresOn: '2031-03-04', note: 'supervised session' },
   'post /training/signoffs/:id/revoke': { reason: 'beam left unattended' },
   'put /stations/:id/configurations': { configurationIds: [id] },
+  'patch /facility/policies': { horizonDays: 90, cancellationFreeHours: 72, cancellationHalfFeeHours: 24, workingHours: { start: '08:00', end: '18:00', weekdays: [1, 2, 3, 4, 5] }, usageWindowMinutes: 60 },
 };
 
 /** Query strings of the GET routes that read one (every other GET route ignores its query). */

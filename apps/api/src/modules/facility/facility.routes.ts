@@ -1,5 +1,7 @@
 import type { AppContext } from '../../lib/context';
-import type { RouteDef } from '../../lib/auth/routes';
+import { facilityPoliciesPatchSchema } from '@femtoslot/shared';
+import { currentUser, type RouteDef } from '../../lib/auth/routes';
+import { updateFacilityPolicies } from './facility-policies.service';
 
 export function facilityRoutes(ctx: AppContext): RouteDef[] {
   return [
@@ -8,7 +10,14 @@ export function facilityRoutes(ctx: AppContext): RouteDef[] {
       method: 'get', path: '/facility', access: 'signed_in',
       handler: async (req, res) => {
         const { facility: f } = await ctx.reference.get(ctx.db.manager, req.referenceRevision);
-        res.json({ facility: { name: f.name, timeZone: f.timeZone, currency: f.currency, policies: f.policies } });
+        res.json({ facility: { name: f.name, timeZone: f.timeZone, currency: f.currency, policies: f.policies, usageWindowMinutes: f.usageWindowMinutes } });
+      },
+    },
+    {
+      method: 'patch', path: '/facility/policies', access: ['admin'],
+      handler: async (req, res) => {
+        const patch = facilityPoliciesPatchSchema.parse(req.body);
+        res.json({ facility: await updateFacilityPolicies(ctx, patch, currentUser(req).id, String(req.id)) });
       },
     },
     {

@@ -5,8 +5,8 @@ import { facilityKeys } from '../../../lib/query-keys';
 
 export type { FacilityPolicies };
 
-/** The facility as GET /api/facility answers it; policies arrived with the booking API. */
-export type FacilityDetail = Facility & { policies?: FacilityPolicies };
+/** The facility as GET /api/facility answers it; policies arrived with the booking API, the session-log window later. */
+export type FacilityDetail = Facility & { policies?: FacilityPolicies; usageWindowMinutes?: number };
 
 export const getFacility = (signal?: AbortSignal) =>
   apiClient.get<{ facility: FacilityDetail }>('/api/facility', signal).then((body) => body.facility);
