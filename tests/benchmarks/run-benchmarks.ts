@@ -79,7 +79,7 @@ export async function runBenchmarks(o: BenchInputs): Promise<Figure[]> {
   const apiEnv = {
     NODE_ENV: 'production', DATABASE_URL: o.databaseUrl, DATA_DIR: o.dataDir, JWT_SECRET: randomBytes(48).toString('base64url'),
     APP_URL: `http://127.0.0.1:${o.apiPort}`, SMTP_HOST: '127.0.0.1', SMTP_PORT: String(o.smtpPort), LOG_LEVEL: 'info', LOGIN_RATE_LIMIT: '1000', MAIL_RATE_LIMIT: '100000',
-    WEB_DIST: webDir, STRIPE_HOST: '127.0.0.1', STRIPE_PORT: String(fakeServer.port), STRIPE_PROTOCOL: 'http', STRIPE_WEBHOOK_SECRET: webhookSecret,
+    WEB_DIST: webDir, STRIPE_HOST: '127.0.0.1', STRIPE_PORT: String(fakeServer.port), STRIPE_PROTOCOL: 'http', STRIPE_WEBHOOK_SECRET: webhookSecret, STRIPE_SECRET_KEY: 'sk_test_femtoslot_bench',
   };
   let api: ApiChild | null = null;
   try {

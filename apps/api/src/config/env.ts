@@ -23,7 +23,8 @@ const envSchema = z.object({
   OUTBOX_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(5),
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
-  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must be a Stripe secret key (sk_test_… or sk_live_…)').default('sk_test_femtoslot_local'),
+  // No default here: outside production the local fake's test key is used (checked in loadEnv).
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must be a Stripe secret key (sk_test_… or sk_live_…)').optional(),
   STRIPE_HOST: z.string().optional(),
   STRIPE_PORT: z.coerce.number().int().min(1).max(65535).optional(),
   STRIPE_PROTOCOL: z.enum(['http', 'https']).optional(),
@@ -34,12 +35,14 @@ const envSchema = z.object({
 });
 
 /** Secrets that have a convenience value outside production and must be set in production. */
-const requiredInProduction = ['JWT_SECRET', 'STRIPE_WEBHOOK_SECRET'] as const;
+const requiredInProduction = ['JWT_SECRET', 'STRIPE_WEBHOOK_SECRET', 'STRIPE_SECRET_KEY'] as const;
 const LOCAL_WEBHOOK_SECRET = 'whsec_femtoslot_local';
+const LOCAL_STRIPE_KEY = 'sk_test_femtoslot_local';
 
-export type Env = Omit<z.infer<typeof envSchema>, 'JWT_SECRET' | 'APP_URL' | 'STRIPE_WEBHOOK_SECRET'> & {
+export type Env = Omit<z.infer<typeof envSchema>, 'JWT_SECRET' | 'APP_URL' | 'STRIPE_WEBHOOK_SECRET' | 'STRIPE_SECRET_KEY'> & {
   JWT_SECRET: string;
   STRIPE_WEBHOOK_SECRET: string;
+  STRIPE_SECRET_KEY: string;
   APP_URL: string;
 };
 
@@ -68,6 +71,7 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     ...env,
     JWT_SECRET: env.JWT_SECRET ?? developmentSecret(env.DATA_DIR),
     STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET ?? LOCAL_WEBHOOK_SECRET,
+    STRIPE_SECRET_KEY: env.STRIPE_SECRET_KEY ?? LOCAL_STRIPE_KEY,
     APP_URL: env.APP_URL ?? `http://${env.HOST}:${env.PORT}`,
   };
 }

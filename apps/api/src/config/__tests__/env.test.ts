@@ -18,7 +18,15 @@ describe('configuration', () => {
     const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
     const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir, JWT_SECRET: 'p'.repeat(48) };
     expect(() => loadEnv(production)).toThrow(/STRIPE_WEBHOOK_SECRET: required in production/);
-    expect(loadEnv({ ...production, STRIPE_WEBHOOK_SECRET: 'whsec_real_one' }).STRIPE_WEBHOOK_SECRET).toBe('whsec_real_one');
+    expect(loadEnv({ ...production, STRIPE_WEBHOOK_SECRET: 'whsec_real_one', STRIPE_SECRET_KEY: 'sk_live_real_one' }).STRIPE_WEBHOOK_SECRET).toBe('whsec_real_one');
+  });
+
+  it('when in production without STRIPE_SECRET_KEY, then start-up fails naming it instead of using the local test key', () => {
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'fs-env-'));
+    const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir, JWT_SECRET: 'p'.repeat(48), STRIPE_WEBHOOK_SECRET: 'whsec_real_one' };
+    expect(() => loadEnv(production)).toThrow(/STRIPE_SECRET_KEY: required in production/);
+    expect(loadEnv({ ...production, STRIPE_SECRET_KEY: 'sk_live_real_one' }).STRIPE_SECRET_KEY).toBe('sk_live_real_one');
+    expect(loadEnv({ DATABASE_URL: 'postgres://x@127.0.0.1/db', DATA_DIR: dir }).STRIPE_SECRET_KEY).toBe('sk_test_femtoslot_local');
   });
 
   it('when in production without either secret, then start-up fails naming both', () => {
