@@ -41,7 +41,7 @@ describe('pricing lines', () => {
     expect(lines.map((l) => l.amountMinor)).toEqual([22_000, 4_125]);
   });
 
-  it('when bookings are cancelled 73, 71, 25 and 23 h before the start, then the fees are 0, 50, 50 and 100 % (facility policy, PRODUCT.md §4)', () => {
+  it('when bookings are cancelled 73, 71, 25 and 23 h before the start, then the fees are 0, 50, 50 and 100 % (facility policy defaults)', () => {
     const start = at('2026-10-20T13:00:00Z');
     const policy = { cancellationFreeHours: 72, cancellationHalfFeeHours: 24 };
     const percents = [73, 71, 25, 23].map((h) => cancellationFeePercent(start, new Date(start.getTime() - h * 3_600_000), policy));

@@ -6,7 +6,7 @@ const policy = { cancellationFreeHours: 72, cancellationHalfFeeHours: 24 };
 const start = new Date('2026-12-10T14:00:00Z');
 const hoursBefore = (h: number) => new Date(start.getTime() - h * 3_600_000);
 
-describe('cancellation fee windows (facility policy, PRODUCT.md §4: free ≥ 72 h, 50 % ≥ 24 h, else 100 %)', () => {
+describe('cancellation fee windows (facility policy defaults: free ≥ 72 h, 50 % ≥ 24 h, else 100 %)', () => {
   it('when cancelled 73 h before, then free; 71 h → 50 %; 25 h → 50 %; 23 h → 100 %', () => {
     expect([73, 71, 25, 23].map((h) => cancellationFeePercent(start, hoursBefore(h), policy))).toEqual([0, 50, 50, 100]);
   });

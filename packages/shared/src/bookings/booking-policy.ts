@@ -4,7 +4,7 @@ export interface CancellationPolicy {
 }
 
 /**
- * Facility policy (PRODUCT.md §4 defaults): free until 72 h before the start, 50 % until 24 h, 100 % after.
+ * Facility policy (defaults): free until 72 h before the start, 50 % until 24 h, 100 % after.
  * "Until N h before" includes the instant exactly N hours before.
  */
 export function cancellationFeePercent(startsAt: Date, cancelledAt: Date, policy: CancellationPolicy): 0 | 50 | 100 {

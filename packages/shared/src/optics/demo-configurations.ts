@@ -4,7 +4,7 @@ import type { ConfigurationDto } from '../facility/facility.schemas';
 export type DemoConfiguration = Omit<ConfigurationDto, 'id' | 'instrumentId' | 'retuneMinutesPerNm' | 'active'>;
 
 /**
- * Demo configurations of the invented "Aurora line" source (PRODUCT.md §5 ranges).
+ * Demo configurations of the invented "Aurora line" source (invented demo ranges).
  * Default wavelengths and OD values are invented for the demo.
  */
 const pumpNearIr = { minNm: 740, maxNm: 1100, od: 7 };

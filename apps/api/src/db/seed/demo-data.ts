@@ -1,7 +1,7 @@
 import type { OrganisationKind, Role } from '@femtoslot/shared';
 
 /**
- * The invented demo scenario of PRODUCT.md §5. Every name here is made up; none is a real facility or person.
+ * The invented demo scenario. Every name here is made up; none is a real facility or person.
  * Demo data only: never used as truth in a test.
  */
 export const demoFacility = {
@@ -66,7 +66,7 @@ export const demoEyewear = [
   { label: 'Goggle C — mid-IR wide', description: 'Demo item: near- and mid-IR', bands: [{ minNm: 750, maxNm: 2700, od: 7 }, { minNm: 2600, maxNm: 11500, od: 6 }] },
 ];
 
-/** Invented demo rate card (PRODUCT.md §5): internal 60, external academic 110, industry 260 USD/h; DFG class +25 %. */
+/** Invented demo rate card: internal 60, external academic 110, industry 260 USD/h; DFG class +25 %. */
 export const demoRateCard = {
   name: 'Demo rate card',
   billingIncrementMinutes: 15,

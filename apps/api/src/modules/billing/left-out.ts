@@ -1,11 +1,5 @@
-import type { LeftOutReason, LeftOutSession } from '@femtoslot/shared';
+import type { LeftOutSession } from '@femtoslot/shared';
 import type { EntityManager } from 'typeorm';
-
-export const leftOutReasonWords: Record<LeftOutReason, string> = {
-  unlogged: 'no session log',
-  log_not_confirmed: 'log submitted, not confirmed by staff',
-  not_approved: 'request never approved',
-};
 
 /**
  * Bookings that start in the month and are not on the statement: approved or completed ones with no log or a log

@@ -1,7 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { cancellationFee } from './cancellation-fee';
 
-// Windows as PRODUCT.md §4 sets them (facility policy: free ≥ 72 h, 50 % ≥ 24 h, else 100 %).
+// Windows as the facility defaults set them (facility policy: free ≥ 72 h, 50 % ≥ 24 h, else 100 %).
 const windows = { cancellationFreeHours: 72, cancellationHalfFeeHours: 24 };
 const start = new Date('2026-06-10T14:00:00Z');
 const hoursBefore = (h: number) => new Date(start.getTime() - h * 3_600_000);

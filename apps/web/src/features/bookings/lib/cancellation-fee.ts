@@ -1,11 +1,11 @@
-import { cancellationFeePercent } from '@femtoslot/shared/bookings/booking-policy';
+import { cancellationFeePercent, cancellationWindows } from '@femtoslot/shared/bookings/booking-policy';
 
 export interface CancellationWindows {
   cancellationFreeHours: number;
   cancellationHalfFeeHours: number;
 }
 
-/** The PRODUCT.md §4 defaults, used until the facility's own policies have loaded. */
+/** The facility defaults (free ≥ 72 h, 50 % ≥ 24 h before the start), used until the facility's own policies have loaded. */
 export const defaultCancellationWindows: CancellationWindows = { cancellationFreeHours: 72, cancellationHalfFeeHours: 24 };
 
 export interface CancellationFee {
@@ -15,24 +15,21 @@ export interface CancellationFee {
   summary: string;
 }
 
-const hour = 3_600_000;
-
 /**
  * Fee for cancelling now a booking that starts at `startsAt`: free until `cancellationFreeHours` before the start,
  * half until `cancellationHalfFeeHours` before, the full fee after. A window's boundary instant belongs to the cheaper side.
  */
 export function cancellationFee(startsAt: Date | string, now: Date, windows: CancellationWindows): CancellationFee {
-  const start = new Date(startsAt).getTime();
-  const freeUntil = start - windows.cancellationFreeHours * hour;
-  const halfUntil = start - windows.cancellationHalfFeeHours * hour;
-  const percent = cancellationFeePercent(new Date(start), now, windows);
+  const start = new Date(startsAt);
+  const [free, half] = cancellationWindows(start, windows);
+  const percent = cancellationFeePercent(start, now, windows);
   if (percent === 0) {
-    return { percent: 0, changesAt: new Date(freeUntil), summary: `Free: more than ${windows.cancellationFreeHours} h before the start.` };
+    return { percent: 0, changesAt: free!.until, summary: `Free: more than ${windows.cancellationFreeHours} h before the start.` };
   }
   if (percent === 50) {
     return {
       percent: 50,
-      changesAt: new Date(halfUntil),
+      changesAt: half!.until,
       summary: `50 % of the booking's price: between ${windows.cancellationFreeHours} h and ${windows.cancellationHalfFeeHours} h before the start.`,
     };
   }
